@@ -1,0 +1,96 @@
+/**
+ * The pattern document: what the `pattern` command writes as pattern.json and what the print-set
+ * exporters, the server and the app read. Lengths are millimetres, angles degrees (shared/DESIGN.md,
+ * "The `pattern` command"). Fields beyond the documented minimum are Sheetsmith's own additions.
+ */
+
+/** A 2D point in a piece's pattern plane, millimetres. */
+export type PointMm = [number, number];
+
+export type PatternSurface = 'outer' | 'mid' | 'inner';
+
+export interface StretchSummary {
+  /** Max over triangles of max(|σ1−1|, |σ2−1|)·100 (Sander et al. 2001 singular values). */
+  maxPct: number;
+  /** Area-weighted root mean square of the same per-triangle value. */
+  rmsPct: number;
+}
+
+/**
+ * One stretch of a piece's boundary that belongs to a seam: the polyline in this piece's 2D
+ * coordinates, in the order that matches the seam's 3D direction (so station `at` values measured
+ * from the seam's start read the same on both pieces).
+ */
+export interface PieceSeamEdge {
+  seam: string;
+  /** Which side of the seam this piece is: 0 or 1 (a tube's self-seam has both on one piece). */
+  side: 0 | 1;
+  path: PointMm[];
+  /** Bevel to cut on this edge, degrees from square, and on which face it removes material. */
+  bevelDeg: number;
+  bevelFace: 'outer' | 'inner' | 'none';
+}
+
+export interface ScoreLine {
+  path: PointMm[];
+  /** Interior angle of the fold in 3D, degrees (180 = flat). */
+  foldDeg: number;
+}
+
+export interface DartSuggestion {
+  /** The cut from the boundary into the high-stretch region, in this piece's 2D coordinates. */
+  path: PointMm[];
+  /** Max stretch left once the dart is cut, percent. */
+  stretchAfterPct: number;
+}
+
+export interface PatternPiece {
+  label: string;
+  faces: number;
+  area3d: number;
+  area2d: number;
+  /** Outer boundary, counter-clockwise, mm. */
+  outline: PointMm[];
+  /** Inner boundaries (clockwise), mm. */
+  holes: PointMm[][];
+  stretch: StretchSummary;
+  quantity: number;
+  mirrored: boolean;
+  thickness: number;
+  surface?: PatternSurface;
+  seamEdges?: PieceSeamEdge[];
+  scoreLines?: ScoreLine[];
+  darts?: DartSuggestion[];
+  /** A line (two points) across the piece for the texture/grain side, when it matters. */
+  textureLine?: PointMm[] | null;
+}
+
+export interface SeamStation {
+  /** Distance along the seam from its start, mm. */
+  at: number;
+  bevel: number;
+  dihedral?: number;
+}
+
+export interface PatternSeam {
+  label: string;
+  /** The one or two pieces the seam joins (one for a tube closed onto itself). */
+  pieces: string[];
+  length3d: number;
+  /** 2D length on each side, in the order of `pieces` (twice the same piece for a self-seam). */
+  lengths: number[];
+  /** Interior angle between the pieces, 180 = flat, < 180 outside corner, > 180 inside corner. */
+  dihedral: { min: number; mean: number; max: number };
+  /** (180 − dihedral)/2 from square, per side of a symmetric joint. */
+  bevel: { min: number; mean: number; max: number };
+  convex: boolean;
+  stations: SeamStation[];
+}
+
+export interface PatternDoc {
+  units: 'mm';
+  name?: string;
+  pieces: PatternPiece[];
+  seams: PatternSeam[];
+  warnings: string[];
+}
