@@ -1,0 +1,12 @@
+export { platonicSolid } from './platonic-solid';
+export type { PlatonicKind } from './platonic-solid';
+export { cone } from './cone';
+export { cylinder } from './cylinder';
+export { uvSphere } from './uv-sphere';
+export { sphereGore } from './sphere-gore';
+export { icoSphere } from './ico-sphere';
+export { torus } from './torus';
+export { helmetShell } from './helmet-shell';
+export type { HelmetShellOptions } from './helmet-shell';
+export { transformMesh } from './transform-mesh';
+export type { MeshTransform } from './transform-mesh';
