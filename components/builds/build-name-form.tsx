@@ -1,0 +1,69 @@
+/**
+ * The one-field form that names a build, used to start a build and to rename one.
+ */
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { StyleSheet, View } from 'react-native';
+import { buildNameField, type BuildCreateBody } from '../../db/validation';
+import { applyServerErrors } from '../../hooks/form-errors';
+import { Button } from '../ui/button';
+import { FormTextField } from '../ui/form-text-field';
+import { Notice } from '../ui/notice';
+import { space } from '../ui/theme';
+import { z } from 'zod';
+
+// buildCreateBody and buildRenameBody share this shape; one form serves both.
+const buildNameBody = z.object({ name: buildNameField });
+
+export interface BuildNameFormProps {
+  label: string;
+  submitLabel: string;
+  initialName?: string;
+  placeholder?: string;
+  /** Sends the name; a rejected promise puts the server's field errors under the field. */
+  onSave: (body: BuildCreateBody) => Promise<unknown>;
+  /** Called after a successful save. */
+  onSaved?: () => void;
+  onCancel?: () => void;
+  /** Clears the field after a successful save (for "start a build", not for rename). */
+  clearOnSave?: boolean;
+}
+
+/**
+ * A build-name field checked by the server's schema (1–120 characters after trimming) with a submit button
+ * and, when `onCancel` is given, a cancel button.
+ */
+export function BuildNameForm({ label, submitLabel, initialName = '', placeholder, onSave, onSaved, onCancel, clearOnSave }: BuildNameFormProps) {
+  const [formError, setFormError] = useState<string | null>(null);
+  const [saving, setSaving] = useState(false);
+  const { control, handleSubmit, setError, reset } = useForm({
+    resolver: zodResolver(buildNameBody),
+    defaultValues: { name: initialName },
+  });
+  const submit = handleSubmit(async (body) => {
+    setFormError(null);
+    setSaving(true);
+    try {
+      await onSave(body);
+      if (clearOnSave) reset({ name: '' });
+      onSaved?.();
+    } catch (e) {
+      setFormError(applyServerErrors(e, ['name'], setError));
+    } finally {
+      setSaving(false);
+    }
+  });
+  return (
+    <View>
+      <FormTextField control={control} name="name" label={label} placeholder={placeholder} onSubmitEditing={submit} maxLength={140} />
+      {formError ? <Notice tone="error">{formError}</Notice> : null}
+      <View style={styles.row}>
+        <Button label={submitLabel} onPress={submit} busy={saving} compact={Boolean(onCancel)} />
+        {onCancel ? <Button label="Cancel" tone="secondary" onPress={onCancel} compact /> : null}
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({ row: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' } });

@@ -1,0 +1,130 @@
+/**
+ * The signed-in shell: a top bar on phones, a side bar from 1024 px wide, and the page beside or below it.
+ */
+import { Link, usePathname } from 'expo-router';
+import type { ReactNode } from 'react';
+import { StyleSheet, View } from 'react-native';
+import type { User } from '../../hooks/api-types';
+import { useCurrentShop } from '../../hooks/current-shop';
+import { useWideLayout } from '../../hooks/use-wide-layout';
+import { FoamEdge } from '../ui/foam-edge';
+import { FoamMark } from '../ui/foam-mark';
+import { Text } from '../ui/text';
+import { fonts, minTouchTarget, palette, radius, space } from '../ui/theme';
+import { RoleBadge } from './role-badge';
+import { ShopSwitcher } from './shop-switcher';
+import { SignOutButton } from './sign-out-button';
+
+const sections = [{ href: '/builds', label: 'Builds' }] as const;
+
+function SideBar({ user }: { user: User }) {
+  const { membership } = useCurrentShop();
+  const path = usePathname();
+  return (
+    <View role="navigation" accessibilityLabel="Main" style={styles.side}>
+      <View style={styles.sideBrand}>
+        <FoamMark size={30} />
+        <Text variant="title" style={styles.onBench}>
+          Sheetsmith
+        </Text>
+      </View>
+      <ShopSwitcher dark />
+      <View style={styles.sideLinks}>
+        {sections.map((s) => {
+          const active = path === s.href || path.startsWith(`${s.href}/`);
+          return (
+            <Link
+              key={s.href}
+              href={s.href}
+              aria-current={active ? 'page' : undefined}
+              style={[styles.sideLink, active && styles.sideLinkActive]}
+            >
+              {s.label}
+            </Link>
+          );
+        })}
+      </View>
+      <View style={styles.sideFoot}>
+        <Text variant="overline" style={styles.onBenchSoft}>
+          Signed in
+        </Text>
+        <Text variant="bodyStrong" numberOfLines={1} style={styles.onBench}>
+          {user.name}
+        </Text>
+        <Text variant="mono" numberOfLines={1} style={styles.onBenchSoft}>
+          {user.email}
+        </Text>
+        {membership ? <RoleBadge role={membership.role} /> : null}
+        <SignOutButton dark />
+      </View>
+    </View>
+  );
+}
+
+function TopBar({ user }: { user: User }) {
+  return (
+    <View role="navigation" accessibilityLabel="Main" style={styles.top}>
+      <View style={styles.topRow}>
+        <Link href="/builds" accessibilityLabel="Sheetsmith: builds" style={styles.topBrandLink}>
+          <View style={styles.topBrand}>
+            <FoamMark size={24} />
+            <Text variant="heading" style={[styles.onBench, styles.topName]}>
+              Sheetsmith
+            </Text>
+          </View>
+        </Link>
+        <View style={styles.topUser}>
+          <Text variant="small" numberOfLines={1} style={[styles.onBenchSoft, styles.topUserName]}>
+            {user.name}
+          </Text>
+        </View>
+        <SignOutButton dark />
+      </View>
+      <ShopSwitcher dark />
+    </View>
+  );
+}
+
+/**
+ * Wraps the page `children` in the navigation for `user`: side bar (brand, shop switcher, sections, who is
+ * signed in with their role, sign out) at 1024 px and wider, otherwise a top bar with the same parts stacked.
+ */
+export function AppFrame({ user, children }: { user: User; children: ReactNode }) {
+  const wide = useWideLayout();
+  return (
+    <View style={[styles.root, wide && styles.rootWide]}>
+      {wide ? <SideBar user={user} /> : <TopBar user={user} />}
+      {wide ? null : <FoamEdge height={5} />}
+      <View style={styles.page}>{children}</View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1, backgroundColor: palette.paper },
+  rootWide: { flexDirection: 'row' },
+  page: { flex: 1 },
+  onBench: { color: palette.onBench },
+  onBenchSoft: { color: palette.onBenchSoft },
+  side: { width: 272, backgroundColor: palette.bench, padding: space.xl, gap: space.xl },
+  sideBrand: { flexDirection: 'row', alignItems: 'center', gap: space.md },
+  sideLinks: { gap: space.xs },
+  sideLink: {
+    minHeight: minTouchTarget,
+    lineHeight: minTouchTarget,
+    paddingHorizontal: space.md,
+    borderRadius: radius.sm,
+    color: palette.onBench,
+    fontFamily: fonts.bodyStrong,
+    fontSize: 16,
+  },
+  sideLinkActive: { backgroundColor: palette.benchLine, borderLeftWidth: 4, borderLeftColor: palette.ember },
+  sideFoot: { marginTop: 'auto', gap: space.xs, borderTopWidth: 1, borderTopColor: palette.benchLine, paddingTop: space.lg },
+  top: { backgroundColor: palette.bench, paddingHorizontal: space.lg, paddingTop: space.md, paddingBottom: space.md, gap: space.md },
+  topRow: { flexDirection: 'row', alignItems: 'center', gap: space.md },
+  topBrandLink: { flexShrink: 0 },
+  topBrand: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  topName: { fontFamily: fonts.display },
+  topUser: { flex: 1, minWidth: 0, alignItems: 'flex-end' },
+  topUserName: { maxWidth: '100%' },
+});

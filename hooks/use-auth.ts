@@ -1,0 +1,41 @@
+/**
+ * Sign up, sign in and sign out. Each keeps the cached `me` in step so the route guards react at once.
+ */
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { SignInBody, SignUpBody } from '../db/validation';
+import { apiRequest } from './api-client';
+import { meSchema } from './api-types';
+import { meQueryKey } from './use-me';
+
+/** POST /api/auth/signup; on success the new person is cached as `me` (with their own shop as owner). */
+export function useSignUp() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: SignUpBody) => apiRequest('POST', '/api/auth/signup', meSchema, body),
+    onSuccess: (me) => qc.setQueryData(meQueryKey, me),
+  });
+}
+
+/** POST /api/auth/signin; on success the person is cached as `me`. Errors: BAD_CREDENTIALS (401), RATE_LIMITED (429). */
+export function useSignIn() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: SignInBody) => apiRequest('POST', '/api/auth/signin', meSchema, body),
+    onSuccess: (me) => qc.setQueryData(meQueryKey, me),
+  });
+}
+
+/**
+ * POST /api/auth/signout; afterwards every cached answer is dropped (nothing of the last person's shops stays
+ * in memory) and `me` becomes `null`.
+ */
+export function useSignOut() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiRequest('POST', '/api/auth/signout', null),
+    onSuccess: () => {
+      qc.clear();
+      qc.setQueryData(meQueryKey, null);
+    },
+  });
+}
