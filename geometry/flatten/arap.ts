@@ -1,0 +1,251 @@
+import { GeometryError } from '../errors';
+import { choleskyFactor } from '../sparse/cholesky';
+import { fromTriplets } from '../sparse/sparse-symmetric-matrix';
+import { cotanWeights } from './cotan-weights';
+import { signedAreas } from './signed-area';
+
+export interface ArapOptions {
+  /** Most local/global rounds (default 60). */
+  iterations?: number;
+  /** Stop when the energy changes by less than this fraction between rounds (default 1e-6). */
+  tolerance?: number;
+}
+
+/**
+ * Returns an as-rigid-as-possible flattening (Float64Array 2V, mm) starting from `initialUV` (2V, e.g. a
+ * rescaled LSCM result). Local/global ARAP parameterization (Liu, Zhang, Xu, Gotsman & Gortler 2008,
+ * "A Local/Global Approach to Mesh Parameterization", SGP): each round fits every triangle the rotation
+ * closest to its current 2D map (closed form for 2×2 — the angle atan2(c−b, a+d) of the weighted
+ * cross-covariance), then solves the cotangent Laplacian system for all vertices with the factor built
+ * once before the first round (one vertex held to fix the translation). Rounds stop when the ARAP energy
+ * changes by less than `tolerance` relative, or after `iterations`. Flip guard: a round that would invert
+ * more triangles than the current iterate is shortened by halving the step toward it (up to 12 halvings);
+ * if no shortened step keeps the count, the current iterate is returned. So the result never has more
+ * inverted triangles than `initialUV`. `positions` 3V mm, `triangles` 3F as for lscm; the piece must pass
+ * pieceTopology (the caller checks). Throws GeometryError FLATTEN_FAILED on bad sizes or a failed solve.
+ */
+export function arapFlatten(
+  positions: Float64Array,
+  triangles: Uint32Array,
+  initialUV: Float64Array,
+  opts: ArapOptions = {},
+): Float64Array {
+  const nv = positions.length / 3;
+  const nf = triangles.length / 3;
+  const maxRounds = opts.iterations ?? 60;
+  const tolerance = opts.tolerance ?? 1e-6;
+  if (initialUV.length !== 2 * nv) {
+    throw new GeometryError('FLATTEN_FAILED', `initial flattening has ${initialUV.length} values, need ${2 * nv} (2 per vertex)`);
+  }
+  if (!Number.isInteger(maxRounds) || maxRounds < 0) {
+    throw new GeometryError('FLATTEN_FAILED', `ARAP iterations must be a non-negative integer, got ${maxRounds}`);
+  }
+  if (!(tolerance >= 0)) throw new GeometryError('FLATTEN_FAILED', `ARAP tolerance must be ≥ 0, got ${tolerance}`);
+  for (let i = 0; i < initialUV.length; i++) {
+    if (!Number.isFinite(initialUV[i])) {
+      throw new GeometryError('FLATTEN_FAILED', `initial flattening of vertex ${i >> 1} is not finite`, { vertex: i >> 1 });
+    }
+  }
+
+  const cot = cotanWeights(positions, triangles);
+  const local = isometricTriangles(positions, triangles);
+  // Matrix K with K_ab = −Σ cot over half-edges a→b or b→a, vertex `held` removed (its row and column).
+  const held = triangles[0];
+  const index = new Int32Array(nv);
+  for (let v = 0, k = 0; v < nv; v++) index[v] = v === held ? -1 : k++;
+  const rows = new Int32Array(9 * nf);
+  const cols = new Int32Array(9 * nf);
+  const vals = new Float64Array(9 * nf);
+  let t = 0;
+  const put = (a: number, b: number, w: number): void => {
+    if (index[a] < 0 || index[b] < 0) return;
+    rows[t] = index[a];
+    cols[t] = index[b];
+    vals[t++] = w;
+  };
+  for (let h = 0; h < 3 * nf; h++) {
+    const a = triangles[h];
+    const b = triangles[h - (h % 3) + ((h % 3) + 1) % 3];
+    put(a, a, cot[h]);
+    put(b, b, cot[h]);
+    put(a, b, -cot[h]);
+  }
+  let factor;
+  try {
+    factor = choleskyFactor(fromTriplets(nv - 1, rows.subarray(0, t), cols.subarray(0, t), vals.subarray(0, t)));
+  } catch (e) {
+    throw new GeometryError('FLATTEN_FAILED', `ARAP system could not be factored: ${(e as Error).message}`);
+  }
+
+  let uv: Float64Array = Float64Array.from(initialUV);
+  let flips = countInverted(signedAreas(uv, triangles));
+  const rot = new Float64Array(2 * nf); // cos, sin per triangle
+  const rhsU = new Float64Array(nv - 1);
+  const rhsV = new Float64Array(nv - 1);
+  const solU = new Float64Array(nv - 1);
+  const solV = new Float64Array(nv - 1);
+  let previousEnergy = Infinity;
+  for (let round = 0; round < maxRounds; round++) {
+    const energy = fitRotations(uv, triangles, cot, local, rot);
+    if (Math.abs(previousEnergy - energy) <= tolerance * previousEnergy || energy === 0) break;
+    previousEnergy = energy;
+
+    // Right-hand side Σ cot_h · R_f (x_a − x_b) for half-edge a→b, into a (and minus into b).
+    rhsU.fill(0);
+    rhsV.fill(0);
+    const hu = uv[2 * held];
+    const hv = uv[2 * held + 1];
+    for (let h = 0; h < 3 * nf; h++) {
+      const f = (h / 3) | 0;
+      const i = h % 3;
+      const j = (i + 1) % 3;
+      const a = triangles[h];
+      const b = triangles[3 * f + j];
+      const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
+      const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+      const c = rot[2 * f];
+      const s = rot[2 * f + 1];
+      const gx = cot[h] * (c * dx - s * dy);
+      const gy = cot[h] * (s * dx + c * dy);
+      const ia = index[a];
+      const ib = index[b];
+      if (ia >= 0) {
+        rhsU[ia] += gx;
+        rhsV[ia] += gy;
+        if (ib < 0) {
+          rhsU[ia] += cot[h] * hu;
+          rhsV[ia] += cot[h] * hv;
+        }
+      }
+      if (ib >= 0) {
+        rhsU[ib] -= gx;
+        rhsV[ib] -= gy;
+        if (ia < 0) {
+          rhsU[ib] += cot[h] * hu;
+          rhsV[ib] += cot[h] * hv;
+        }
+      }
+    }
+    factor.solve(rhsU, solU);
+    factor.solve(rhsV, solV);
+    const target = new Float64Array(2 * nv);
+    for (let v = 0; v < nv; v++) {
+      const k = index[v];
+      target[2 * v] = k < 0 ? hu : solU[k];
+      target[2 * v + 1] = k < 0 ? hv : solV[k];
+    }
+    const accepted = guardedStep(uv, target, triangles, flips);
+    if (accepted === null) break;
+    uv = accepted.uv;
+    flips = accepted.flips;
+  }
+  for (let i = 0; i < uv.length; i++) {
+    if (!Number.isFinite(uv[i])) {
+      throw new GeometryError('FLATTEN_FAILED', `ARAP produced a non-finite coordinate at vertex ${i >> 1}`, { vertex: i >> 1 });
+    }
+  }
+  return uv;
+}
+
+/** The step toward `target`, halved until it inverts no more triangles than `flips`; null if none does. */
+function guardedStep(
+  uv: Float64Array,
+  target: Float64Array,
+  triangles: Uint32Array,
+  flips: number,
+): { uv: Float64Array; flips: number } | null {
+  let step = 1;
+  const trial = new Float64Array(uv.length);
+  for (let halving = 0; halving <= 12; halving++) {
+    for (let i = 0; i < uv.length; i++) trial[i] = uv[i] + step * (target[i] - uv[i]);
+    const n = countInverted(signedAreas(trial, triangles));
+    if (n <= flips) return { uv: trial, flips: n };
+    step *= 0.5;
+  }
+  return null;
+}
+
+function countInverted(areas: Float64Array): number {
+  let n = 0;
+  for (let f = 0; f < areas.length; f++) if (!(areas[f] > 0)) n++;
+  return n;
+}
+
+/**
+ * Each triangle laid isometrically in its own plane: corner 0 at the origin, corner 1 on +x, corner 2
+ * above the x axis (6 numbers per triangle).
+ */
+function isometricTriangles(positions: Float64Array, triangles: Uint32Array): Float64Array {
+  const nf = triangles.length / 3;
+  const out = new Float64Array(6 * nf);
+  for (let f = 0; f < nf; f++) {
+    const i0 = 3 * triangles[3 * f];
+    const i1 = 3 * triangles[3 * f + 1];
+    const i2 = 3 * triangles[3 * f + 2];
+    const ax = positions[i1] - positions[i0];
+    const ay = positions[i1 + 1] - positions[i0 + 1];
+    const az = positions[i1 + 2] - positions[i0 + 2];
+    const bx = positions[i2] - positions[i0];
+    const by = positions[i2 + 1] - positions[i0 + 1];
+    const bz = positions[i2 + 2] - positions[i0 + 2];
+    const la = Math.sqrt(ax * ax + ay * ay + az * az);
+    const cx = ay * bz - az * by;
+    const cy = az * bx - ax * bz;
+    const cz = ax * by - ay * bx;
+    out[6 * f + 2] = la;
+    out[6 * f + 4] = (ax * bx + ay * by + az * bz) / la;
+    out[6 * f + 5] = Math.sqrt(cx * cx + cy * cy + cz * cz) / la;
+  }
+  return out;
+}
+
+/**
+ * Local step: for each triangle the rotation R maximising Σ cot·(du·R dx) over its half-edges, written
+ * to rot as (cos, sin); returns the ARAP energy ½ Σ cot ‖du − R dx‖² of `uv` with those rotations.
+ */
+function fitRotations(
+  uv: Float64Array,
+  triangles: Uint32Array,
+  cot: Float64Array,
+  local: Float64Array,
+  rot: Float64Array,
+): number {
+  const nf = triangles.length / 3;
+  let energy = 0;
+  for (let f = 0; f < nf; f++) {
+    let s00 = 0;
+    let s01 = 0;
+    let s10 = 0;
+    let s11 = 0;
+    for (let i = 0; i < 3; i++) {
+      const j = (i + 1) % 3;
+      const w = cot[3 * f + i];
+      const a = triangles[3 * f + i];
+      const b = triangles[3 * f + j];
+      const du = uv[2 * a] - uv[2 * b];
+      const dv = uv[2 * a + 1] - uv[2 * b + 1];
+      const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
+      const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+      s00 += w * du * dx;
+      s01 += w * du * dy;
+      s10 += w * dv * dx;
+      s11 += w * dv * dy;
+    }
+    const angle = Math.atan2(s10 - s01, s00 + s11);
+    const c = Math.cos(angle);
+    const s = Math.sin(angle);
+    rot[2 * f] = c;
+    rot[2 * f + 1] = s;
+    for (let i = 0; i < 3; i++) {
+      const j = (i + 1) % 3;
+      const a = triangles[3 * f + i];
+      const b = triangles[3 * f + j];
+      const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
+      const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+      const ex = uv[2 * a] - uv[2 * b] - (c * dx - s * dy);
+      const ey = uv[2 * a + 1] - uv[2 * b + 1] - (s * dx + c * dy);
+      energy += 0.5 * cot[3 * f + i] * (ex * ex + ey * ey);
+    }
+  }
+  return energy;
+}
