@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import fc from 'fast-check';
-import bunny from 'bunny';
+import { createRequire } from 'node:module';
 import { OBJLoader } from 'three/examples/jsm/loaders/OBJLoader.js';
 import type { BufferGeometry, Mesh } from 'three';
 import { parseObj } from '../../../geometry/io/parse-obj';
@@ -14,6 +14,8 @@ import type { TriMesh } from '../../../geometry/mesh/tri-mesh';
 import { writeObj } from './model-writers';
 import { rigidMotion, scaleFactor } from '../shapes/motion-arbitrary';
 
+// The bunny package ships no type declarations; load it untyped and describe its shape here.
+const bunny = createRequire(import.meta.url)('bunny') as { positions: number[][]; cells: number[][] };
 const enc = (s: string) => new TextEncoder().encode(s);
 const fixture = (name: string) => new Uint8Array(readFileSync(join(__dirname, '../../fixtures/meshes', name)));
 
@@ -37,7 +39,7 @@ function ourCorners(mesh: TriMesh): Float32Array {
 }
 
 function bunnyObj(): string {
-  const b = bunny as unknown as { positions: number[][]; cells: number[][] };
+  const b = bunny;
   const lines = ['# Stanford bunny (public domain) via the npm package "bunny"'];
   for (const p of b.positions) lines.push(`v ${p[0]} ${p[1]} ${p[2]}`);
   for (const c of b.cells) lines.push(`f ${c[0] + 1} ${c[1] + 1} ${c[2] + 1}`);
