@@ -1,6 +1,7 @@
 import { GeometryError } from '../errors';
 import { choleskyFactor } from '../sparse/cholesky';
-import { fromTriplets } from '../sparse/sparse-symmetric-matrix';
+import { principalSubmatrix } from '../sparse/sparse-symmetric-matrix';
+import { cotanLaplacian } from './cotan-laplacian';
 import { cotanWeights } from './cotan-weights';
 import { signedAreas } from './signed-area';
 
@@ -49,30 +50,14 @@ export function arapFlatten(
 
   const cot = cotanWeights(positions, triangles);
   const local = isometricTriangles(positions, triangles);
-  // Matrix K with K_ab = −Σ cot over half-edges a→b or b→a, vertex `held` removed (its row and column).
+  // Global step: L·u = Σ ½cot_h·R_f(x_a − x_b) (per half-edge a→b, into a and minus into b), L the
+  // cotangent Laplacian with vertex `held` removed to fix the translation.
   const held = triangles[0];
   const index = new Int32Array(nv);
   for (let v = 0, k = 0; v < nv; v++) index[v] = v === held ? -1 : k++;
-  const rows = new Int32Array(9 * nf);
-  const cols = new Int32Array(9 * nf);
-  const vals = new Float64Array(9 * nf);
-  let t = 0;
-  const put = (a: number, b: number, w: number): void => {
-    if (index[a] < 0 || index[b] < 0) return;
-    rows[t] = index[a];
-    cols[t] = index[b];
-    vals[t++] = w;
-  };
-  for (let h = 0; h < 3 * nf; h++) {
-    const a = triangles[h];
-    const b = triangles[h - (h % 3) + ((h % 3) + 1) % 3];
-    put(a, a, cot[h]);
-    put(b, b, cot[h]);
-    put(a, b, -cot[h]);
-  }
   let factor;
   try {
-    factor = choleskyFactor(fromTriplets(nv - 1, rows.subarray(0, t), cols.subarray(0, t), vals.subarray(0, t)));
+    factor = choleskyFactor(principalSubmatrix(cotanLaplacian(triangles, cot, nv), index, nv - 1));
   } catch (e) {
     throw new GeometryError('FLATTEN_FAILED', `ARAP system could not be factored: ${(e as Error).message}`);
   }
@@ -87,10 +72,10 @@ export function arapFlatten(
   let previousEnergy = Infinity;
   for (let round = 0; round < maxRounds; round++) {
     const energy = fitRotations(uv, triangles, cot, local, rot);
-    if (Math.abs(previousEnergy - energy) <= tolerance * previousEnergy || energy === 0) break;
+    if (energy === 0) break;
+    if (round > 0 && Math.abs(previousEnergy - energy) <= tolerance * previousEnergy) break;
     previousEnergy = energy;
 
-    // Right-hand side Σ cot_h · R_f (x_a − x_b) for half-edge a→b, into a (and minus into b).
     rhsU.fill(0);
     rhsV.fill(0);
     const hu = uv[2 * held];
@@ -105,24 +90,25 @@ export function arapFlatten(
       const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
       const c = rot[2 * f];
       const s = rot[2 * f + 1];
-      const gx = cot[h] * (c * dx - s * dy);
-      const gy = cot[h] * (s * dx + c * dy);
+      const w = 0.5 * cot[h];
+      const gx = w * (c * dx - s * dy);
+      const gy = w * (s * dx + c * dy);
       const ia = index[a];
       const ib = index[b];
       if (ia >= 0) {
         rhsU[ia] += gx;
         rhsV[ia] += gy;
         if (ib < 0) {
-          rhsU[ia] += cot[h] * hu;
-          rhsV[ia] += cot[h] * hv;
+          rhsU[ia] += w * hu;
+          rhsV[ia] += w * hv;
         }
       }
       if (ib >= 0) {
         rhsU[ib] -= gx;
         rhsV[ib] -= gy;
         if (ia < 0) {
-          rhsU[ib] += cot[h] * hu;
-          rhsV[ib] += cot[h] * hv;
+          rhsU[ib] += w * hu;
+          rhsV[ib] += w * hv;
         }
       }
     }

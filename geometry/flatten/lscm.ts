@@ -1,6 +1,8 @@
 import { GeometryError } from '../errors';
 import { choleskyFactor } from '../sparse/cholesky';
-import { fromTriplets } from '../sparse/sparse-symmetric-matrix';
+import { amdOrdering } from '../sparse/fill-ordering';
+import { principalSubmatrix, type SparseSymmetricMatrix } from '../sparse/sparse-symmetric-matrix';
+import { cotanLaplacian } from './cotan-laplacian';
 import { cotanWeights } from './cotan-weights';
 import { pieceTopology } from './piece-topology';
 
@@ -27,64 +29,89 @@ export function lscm(positions: Float64Array, triangles: Uint32Array, pins?: Lsc
   const nv = positions.length / 3;
   const { pinVertex, pinUV } = pins ? checkPins(pins, nv) : farthestBoundaryPins(positions, triangles, topo.boundary);
 
-  // Variable 2v is u_v, 2v+1 is v_v; pinned variables are moved to the right-hand side.
-  const free = new Int32Array(2 * nv);
-  const fixedValue = new Float64Array(2 * nv);
+  // Unknowns: u and v of every free vertex, interleaved (2k, 2k+1) so that the vertex ordering carries over.
+  const vfree = new Int32Array(nv);
+  const pinU = new Float64Array(nv);
+  const pinV = new Float64Array(nv);
   for (let k = 0; k < pinVertex.length; k++) {
-    free[2 * pinVertex[k]] = -1;
-    free[2 * pinVertex[k] + 1] = -1;
-    fixedValue[2 * pinVertex[k]] = pinUV[2 * k];
-    fixedValue[2 * pinVertex[k] + 1] = pinUV[2 * k + 1];
+    vfree[pinVertex[k]] = -1;
+    pinU[pinVertex[k]] = pinUV[2 * k];
+    pinV[pinVertex[k]] = pinUV[2 * k + 1];
   }
-  let nFree = 0;
-  for (let x = 0; x < 2 * nv; x++) if (free[x] === 0) free[x] = nFree++;
-  else free[x] = -1;
+  let m = 0;
+  for (let v = 0; v < nv; v++) vfree[v] = vfree[v] < 0 ? -1 : m++;
 
-  const cot = cotanWeights(positions, triangles);
-  const nf = triangles.length / 3;
-  const cap = 18 * nf + 2 * topo.boundary.length;
-  const rows = new Int32Array(cap);
-  const cols = new Int32Array(cap);
-  const vals = new Float64Array(cap);
-  const rhs = new Float64Array(nFree);
-  let t = 0;
-  // One symmetric entry (a, b, w) of the Hessian of E_C, split between matrix and right-hand side.
-  const add = (a: number, b: number, w: number): void => {
-    const fa = free[a];
-    const fb = free[b];
-    if (fa >= 0 && fb >= 0) {
-      rows[t] = fa;
-      cols[t] = fb;
-      vals[t++] = w;
-    } else if (fa >= 0) {
-      rhs[fa] -= w * fixedValue[b];
-    } else if (fb >= 0) {
-      rhs[fb] -= w * fixedValue[a];
-    }
-  };
-  // Dirichlet part: half-edge a→b adds ¼·cot_h·(x_a − x_b)² to the energy of u and of v (Hessian ½·cot_h).
-  for (let h = 0; h < 3 * nf; h++) {
-    const a = triangles[h];
-    const b = triangles[h - (h % 3) + ((h % 3) + 1) % 3];
-    const w = 0.5 * cot[h];
-    for (let c = 0; c < 2; c++) {
-      add(2 * a + c, 2 * a + c, w);
-      add(2 * b + c, 2 * b + c, w);
-      add(2 * a + c, 2 * b + c, -w);
-    }
-  }
-  // Area part: the boundary half-edge a→b adds ½(u_a v_b − u_b v_a) to the enclosed area, whose Hessian
-  // has +½ at (u_a, v_b) and −½ at (u_b, v_a); E_C subtracts it.
+  // Hessian of E_C in 2×2 blocks: block (i, j) = [[L_ij, −s_ij], [s_ij, L_ij]], L the cotangent Laplacian
+  // (the Dirichlet part) and s_ij = ½ if i→j is a boundary half-edge, −½ if j→i is: the Hessian of the
+  // enclosed area ½Σ(u_a v_b − u_b v_a) over boundary half-edges a→b, which E_C subtracts.
+  const lap = cotanLaplacian(triangles, cotanWeights(positions, triangles), nv);
+  const area = new Float64Array(lap.rowIdx.length);
   for (const h of topo.boundary) {
     const a = triangles[h];
     const b = triangles[h - (h % 3) + ((h % 3) + 1) % 3];
-    add(2 * a, 2 * b + 1, -0.5);
-    add(2 * b, 2 * a + 1, 0.5);
+    area[entryOf(lap, a, b)] += 0.5;
+    area[entryOf(lap, b, a)] -= 0.5;
   }
-  const matrix = fromTriplets(nFree, rows.subarray(0, t), cols.subarray(0, t), vals.subarray(0, t));
+  let nnz = 0;
+  for (let j = 0; j < nv; j++) {
+    if (vfree[j] < 0) continue;
+    for (let p = lap.colPtr[j]; p < lap.colPtr[j + 1]; p++) {
+      if (vfree[lap.rowIdx[p]] >= 0) nnz += area[p] === 0 ? 2 : 4;
+    }
+  }
+  const colPtr = new Int32Array(2 * m + 1);
+  const rowIdx = new Int32Array(nnz);
+  const values = new Float64Array(nnz);
+  const rhs = new Float64Array(2 * m);
+  let q = 0;
+  for (let j = 0; j < nv; j++) {
+    const k = vfree[j];
+    if (k < 0) continue;
+    // Column u_j, then column v_j; rows ascend because free indices keep the vertex order.
+    for (let c = 0; c < 2; c++) {
+      colPtr[2 * k + c] = q;
+      for (let p = lap.colPtr[j]; p < lap.colPtr[j + 1]; p++) {
+        const ni = vfree[lap.rowIdx[p]];
+        if (ni < 0) continue;
+        const l = lap.values[p];
+        const sij = area[p];
+        if (c === 0) {
+          rowIdx[q] = 2 * ni;
+          values[q++] = l;
+          if (sij !== 0) {
+            rowIdx[q] = 2 * ni + 1;
+            values[q++] = sij;
+          }
+        } else {
+          if (sij !== 0) {
+            rowIdx[q] = 2 * ni;
+            values[q++] = -sij;
+          }
+          rowIdx[q] = 2 * ni + 1;
+          values[q++] = l;
+        }
+      }
+    }
+    // Pinned neighbours move to the right-hand side: H(u_j, u_i) = L_ij, H(u_j, v_i) = s_ij,
+    // H(v_j, u_i) = −s_ij, H(v_j, v_i) = L_ij.
+    for (let p = lap.colPtr[j]; p < lap.colPtr[j + 1]; p++) {
+      const i = lap.rowIdx[p];
+      if (vfree[i] >= 0) continue;
+      rhs[2 * k] -= lap.values[p] * pinU[i] + area[p] * pinV[i];
+      rhs[2 * k + 1] -= -area[p] * pinU[i] + lap.values[p] * pinV[i];
+    }
+  }
+  colPtr[2 * m] = q;
+  const matrix = { n: 2 * m, colPtr, rowIdx, values };
+  const vertexOrder = amdOrdering(principalSubmatrix(lap, vfree, m));
+  const order = new Int32Array(2 * m);
+  for (let k = 0; k < m; k++) {
+    order[2 * k] = 2 * vertexOrder[k];
+    order[2 * k + 1] = 2 * vertexOrder[k] + 1;
+  }
   let solution: Float64Array;
   try {
-    solution = choleskyFactor(matrix).solve(rhs);
+    solution = choleskyFactor(matrix, order).solve(rhs);
   } catch (e) {
     throw new GeometryError(
       'FLATTEN_FAILED',
@@ -92,8 +119,24 @@ export function lscm(positions: Float64Array, triangles: Uint32Array, pins?: Lsc
     );
   }
   const uv = new Float64Array(2 * nv);
-  for (let x = 0; x < 2 * nv; x++) uv[x] = free[x] >= 0 ? solution[free[x]] : fixedValue[x];
+  for (let v = 0; v < nv; v++) {
+    const k = vfree[v];
+    uv[2 * v] = k < 0 ? pinU[v] : solution[2 * k];
+    uv[2 * v + 1] = k < 0 ? pinV[v] : solution[2 * k + 1];
+  }
   return uv;
+}
+
+/** Position of entry (row, col) in `a`'s storage (binary search in the column); the entry must exist. */
+function entryOf(a: SparseSymmetricMatrix, row: number, col: number): number {
+  let lo = a.colPtr[col];
+  let hi = a.colPtr[col + 1] - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (a.rowIdx[mid] < row) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }
 
 function checkPins(pins: LscmPins, nv: number): { pinVertex: Int32Array; pinUV: Float64Array } {

@@ -1,4 +1,4 @@
-export { fromTriplets, multiply, diagonal, type SparseSymmetricMatrix } from './sparse-symmetric-matrix';
+export { fromTriplets, multiply, diagonal, principalSubmatrix, type SparseSymmetricMatrix } from './sparse-symmetric-matrix';
 export { amdOrdering } from './fill-ordering';
 export { nestedDissectionOrdering } from './nested-dissection';
 export { choleskyFactor, CholeskyFactor } from './cholesky';

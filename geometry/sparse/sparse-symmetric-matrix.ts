@@ -133,3 +133,33 @@ export function diagonal(a: SparseSymmetricMatrix): Float64Array {
   }
   return d;
 }
+
+/**
+ * Returns the principal submatrix of `a` on the rows and columns kept by `index` (length n: the new index
+ * of each kept row/column, −1 for a dropped one; kept indices must be 0..size−1 in increasing order).
+ * Used to remove pinned unknowns from a system.
+ */
+export function principalSubmatrix(a: SparseSymmetricMatrix, index: Int32Array, size: number): SparseSymmetricMatrix {
+  const colPtr = new Int32Array(size + 1);
+  let nnz = 0;
+  for (let j = 0; j < a.n; j++) {
+    if (index[j] < 0) continue;
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) if (index[a.rowIdx[p]] >= 0) nnz++;
+  }
+  const rowIdx = new Int32Array(nnz);
+  const values = new Float64Array(nnz);
+  let q = 0;
+  for (let j = 0; j < a.n; j++) {
+    const nj = index[j];
+    if (nj < 0) continue;
+    colPtr[nj] = q;
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      const ni = index[a.rowIdx[p]];
+      if (ni < 0) continue;
+      rowIdx[q] = ni;
+      values[q++] = a.values[p];
+    }
+  }
+  colPtr[size] = q;
+  return { n: size, colPtr, rowIdx, values };
+}
