@@ -26,16 +26,16 @@ export function useSignIn() {
 }
 
 /**
- * POST /api/auth/signout; afterwards every cached answer is dropped (nothing of the last person's shops stays
- * in memory) and `me` becomes `null`.
+ * POST /api/auth/signout; afterwards `me` becomes `null` and every other cached answer is dropped, so nothing
+ * of the last person's shops stays in memory. (`me` is set rather than removed: the guards are watching it.)
  */
 export function useSignOut() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: () => apiRequest('POST', '/api/auth/signout', null),
     onSuccess: () => {
-      qc.clear();
       qc.setQueryData(meQueryKey, null);
+      qc.removeQueries({ predicate: (q) => q.queryKey[0] !== meQueryKey[0] });
     },
   });
 }

@@ -55,7 +55,11 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
     <View style={[styles.root, wide && styles.rootWide]}>
       <Brand wide={wide} />
       {wide ? null : <FoamEdge height={6} />}
-      <ScrollView style={styles.formScroll} contentContainerStyle={styles.formContent} keyboardShouldPersistTaps="handled">
+      <ScrollView
+        style={styles.formScroll}
+        contentContainerStyle={[styles.formContent, wide && styles.formContentWide]}
+        keyboardShouldPersistTaps="handled"
+      >
         <View role="main" style={styles.form}>
           <Text variant="title" heading={1} style={styles.title}>
             {title}
@@ -81,7 +85,8 @@ const styles = StyleSheet.create({
   stepNo: { color: palette.sand },
   stepText: { color: palette.onBench, flex: 1 },
   formScroll: { flex: 1 },
-  formContent: { flexGrow: 1, justifyContent: 'center', padding: space.lg, paddingVertical: space.xxl },
+  formContent: { flexGrow: 1, padding: space.lg, paddingVertical: space.xxl },
+  formContentWide: { justifyContent: 'center' },
   form: { width: '100%', maxWidth: 420, alignSelf: 'center' },
   title: { marginBottom: space.xl },
 });

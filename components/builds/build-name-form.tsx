@@ -28,13 +28,15 @@ export interface BuildNameFormProps {
   onCancel?: () => void;
   /** Clears the field after a successful save (for "start a build", not for rename). */
   clearOnSave?: boolean;
+  /** Puts the cursor in the field when the form appears (for rename, opened by a button). */
+  autoFocus?: boolean;
 }
 
 /**
  * A build-name field checked by the server's schema (1–120 characters after trimming) with a submit button
  * and, when `onCancel` is given, a cancel button.
  */
-export function BuildNameForm({ label, submitLabel, initialName = '', placeholder, onSave, onSaved, onCancel, clearOnSave }: BuildNameFormProps) {
+export function BuildNameForm({ label, submitLabel, initialName = '', placeholder, onSave, onSaved, onCancel, clearOnSave, autoFocus }: BuildNameFormProps) {
   const [formError, setFormError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
   const { control, handleSubmit, setError, reset } = useForm({
@@ -56,7 +58,7 @@ export function BuildNameForm({ label, submitLabel, initialName = '', placeholde
   });
   return (
     <View>
-      <FormTextField control={control} name="name" label={label} placeholder={placeholder} onSubmitEditing={submit} maxLength={140} />
+      <FormTextField control={control} name="name" label={label} placeholder={placeholder} onSubmitEditing={submit} maxLength={140} autoFocus={autoFocus} selectTextOnFocus={autoFocus} />
       {formError ? <Notice tone="error">{formError}</Notice> : null}
       <View style={styles.row}>
         <Button label={submitLabel} onPress={submit} busy={saving} compact={Boolean(onCancel)} />

@@ -34,6 +34,7 @@ export function BuildRow({ build, can }: { build: Build; can: BuildPermissions }
         <BuildNameForm
           label={`New name for “${build.name}”`}
           submitLabel="Save name"
+          autoFocus
           initialName={build.name}
           onSave={(body) => rename.mutateAsync({ buildId: build.id, body })}
           onSaved={() => setMode('view')}

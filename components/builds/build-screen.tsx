@@ -2,7 +2,7 @@
  * One build's page: its name and dates, rename and delete as the role allows, and what comes next.
  */
 import { Link, useRouter } from 'expo-router';
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useCurrentShop } from '../../hooks/current-shop';
 import { buildPermissionsFor } from '../../hooks/role-permissions';
@@ -21,7 +21,7 @@ import { JobSteps } from './job-steps';
 
 /**
  * Shows build `buildId` of shop `shopId` (the current shop when the link carried none). If the person belongs
- * to that shop it becomes the current shop. Rename and delete follow buildPermissionsFor; after a delete the
+ * to that shop it becomes the current shop; switching shop afterwards returns to the builds list. Rename and delete follow buildPermissionsFor; after a delete the
  * page returns to the builds list.
  */
 export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: string | null }) {
@@ -34,9 +34,18 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
   const remove = useDeleteBuild(targetShopId);
   const [mode, setMode] = useState<'view' | 'rename' | 'delete'>('view');
 
+  // On arrival the build's shop becomes the current shop; if the person later switches to another shop in the
+  // navigation, this build is no longer in view, so go to that shop's list.
+  const arrivedIn = useRef<string | null>(null);
   useEffect(() => {
-    if (targetMembership && targetMembership.shopId !== membership?.shopId) choose(targetMembership.shopId);
-  }, [targetMembership, membership?.shopId, choose]);
+    if (!targetMembership) return;
+    if (arrivedIn.current !== targetMembership.shopId) {
+      arrivedIn.current = targetMembership.shopId;
+      if (membership?.shopId !== targetMembership.shopId) choose(targetMembership.shopId);
+    } else if (membership && membership.shopId !== targetMembership.shopId) {
+      router.replace('/builds');
+    }
+  }, [targetMembership, membership, choose, router]);
 
   const back = (
     <Link href="/builds" style={styles.back}>
@@ -86,6 +95,7 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
           <BuildNameForm
             label="Build name"
             submitLabel="Save name"
+            autoFocus
             initialName={b.name}
             onSave={(body) => rename.mutateAsync({ buildId: b.id, body })}
             onSaved={() => setMode('view')}

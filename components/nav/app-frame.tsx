@@ -54,7 +54,7 @@ function SideBar({ user }: { user: User }) {
         <Text variant="mono" numberOfLines={1} style={styles.onBenchSoft}>
           {user.email}
         </Text>
-        {membership ? <RoleBadge role={membership.role} /> : null}
+        {membership ? <RoleBadge role={membership.role} style={styles.sideBadge} /> : null}
         <SignOutButton dark />
       </View>
     </View>
@@ -119,6 +119,7 @@ const styles = StyleSheet.create({
     fontSize: 16,
   },
   sideLinkActive: { backgroundColor: palette.benchLine, borderLeftWidth: 4, borderLeftColor: palette.ember },
+  sideBadge: { alignSelf: 'flex-start' },
   sideFoot: { marginTop: 'auto', gap: space.xs, borderTopWidth: 1, borderTopColor: palette.benchLine, paddingTop: space.lg },
   top: { backgroundColor: palette.bench, paddingHorizontal: space.lg, paddingTop: space.md, paddingBottom: space.md, gap: space.md },
   topRow: { flexDirection: 'row', alignItems: 'center', gap: space.md },

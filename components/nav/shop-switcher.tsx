@@ -31,14 +31,16 @@ export function ShopSwitcher({ dark }: { dark?: boolean }) {
         style={({ pressed }) => [styles.current, { borderColor: dark ? palette.benchLine : palette.rule }, pressed && styles.pressed]}
       >
         <View style={styles.currentText}>
-          <Text variant="overline" style={{ color: fgSoft }}>
-            Shop
-          </Text>
-          <Text variant="bodyStrong" numberOfLines={1} style={{ color: fg }}>
+          <View style={styles.overlineRow}>
+            <Text variant="overline" style={{ color: fgSoft }}>
+              Shop
+            </Text>
+            {membership ? <RoleBadge role={membership.role} /> : null}
+          </View>
+          <Text variant="bodyStrong" numberOfLines={2} style={{ color: fg }}>
             {membership?.shopName ?? 'No shop yet'}
           </Text>
         </View>
-        {membership ? <RoleBadge role={membership.role} /> : null}
         <Text style={[styles.chevron, { color: fgSoft }]} aria-hidden>
           {open ? '▴' : '▾'}
         </Text>
@@ -61,7 +63,7 @@ export function ShopSwitcher({ dark }: { dark?: boolean }) {
                   style={({ pressed }) => [styles.option, pressed && styles.pressed]}
                 >
                   <View style={[styles.dot, { borderColor: fgSoft }, chosen && styles.dotOn]} />
-                  <Text numberOfLines={1} style={[styles.optionName, { color: palette.ink }, chosen && styles.optionChosen]}>
+                  <Text numberOfLines={2} style={[styles.optionName, { color: palette.ink }, chosen && styles.optionChosen]}>
                     {m.shopName}
                   </Text>
                   <RoleBadge role={m.role} />
@@ -99,9 +101,10 @@ const styles = StyleSheet.create({
     borderWidth: 1,
     borderRadius: radius.md,
     paddingHorizontal: space.md,
-    paddingVertical: space.xs,
+    paddingVertical: space.sm,
   },
-  currentText: { flex: 1, minWidth: 0 },
+  currentText: { flex: 1, minWidth: 0, gap: space.xxs },
+  overlineRow: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   chevron: { fontSize: 14, width: 16, textAlign: 'center' },
   pressed: { opacity: 0.75 },
   panel: { borderRadius: radius.md, padding: space.sm, gap: space.xxs },
