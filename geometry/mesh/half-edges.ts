@@ -8,6 +8,11 @@ export interface EdgeAnalysis {
   nonManifoldEdges: Uint32Array;
   /** Edges shared by exactly two faces that both run it in the same direction (inconsistent winding), as vertex pairs. */
   misorientedEdges: Uint32Array;
+  /**
+   * partner[h]: the other face's half-edge on an edge used by exactly two faces, whichever way it runs
+   * (equal to twin[h] when the winding agrees); −1 on boundary and non-manifold edges.
+   */
+  partner: Int32Array;
 }
 
 function checkTriangles(triangles: Uint32Array, vertexCount: number): void {
@@ -52,6 +57,7 @@ export function analyzeEdges(triangles: Uint32Array, vertexCount: number): EdgeA
     bucket[fill[a < b ? a : b]++] = h;
   }
   const twin = new Int32Array(H).fill(-1);
+  const partner = new Int32Array(H).fill(-1);
   const done = new Uint8Array(H);
   const nonManifold: number[] = [];
   const misoriented: number[] = [];
@@ -74,6 +80,8 @@ export function analyzeEdges(triangles: Uint32Array, vertexCount: number): EdgeA
       }
       done[h] = 1;
       if (count === 2) {
+        partner[h] = mate;
+        partner[mate] = h;
         if (triangles[h] !== triangles[mate]) {
           twin[h] = mate;
           twin[mate] = h;
@@ -85,7 +93,7 @@ export function analyzeEdges(triangles: Uint32Array, vertexCount: number): EdgeA
       }
     }
   }
-  return { twin, nonManifoldEdges: Uint32Array.from(nonManifold), misorientedEdges: Uint32Array.from(misoriented) };
+  return { twin, nonManifoldEdges: Uint32Array.from(nonManifold), misorientedEdges: Uint32Array.from(misoriented), partner };
 }
 
 /**
