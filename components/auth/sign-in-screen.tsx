@@ -43,6 +43,8 @@ export function SignInScreen() {
         keyboardType="email-address"
         autoCapitalize="none"
         inputMode="email"
+        autoCorrect={false}
+        spellCheck={false}
         onSubmitEditing={submit}
       />
       <FormTextField

@@ -44,6 +44,8 @@ export function SignUpScreen() {
         keyboardType="email-address"
         autoCapitalize="none"
         inputMode="email"
+        autoCorrect={false}
+        spellCheck={false}
         onSubmitEditing={submit}
       />
       <FormTextField
