@@ -3,7 +3,8 @@
  * first if the triangles' total signed area is negative (so the pattern reads counter-clockwise, seen from
  * the visible side), then turned so the principal axis of the area's second moment lies along x (sign
  * chosen so the third moment along x is ≥ 0), then moved so the bounding box's lower-left corner is at
- * the origin. Moments are the exact ones of the triangles as uniform plane regions. `triangles` 3F.
+ * the origin. Where symmetry leaves the axis or its sign undecided (moments equal to 1e-9 relative), the
+ * vertex order decides, so the pose stays the same under any rigid motion or scaling of the input. Moments are the exact ones of the triangles as uniform plane regions. `triangles` 3F.
  */
 export function canonicalPose(uv: Float64Array, triangles: Uint32Array): Float64Array {
   const out = Float64Array.from(uv);
@@ -49,7 +50,15 @@ export function canonicalPose(uv: Float64Array, triangles: Uint32Array): Float64
     iyy += (a / 12) * (qyy + sy * sy);
     ixy += (a / 12) * (qxy + sx * sy);
   }
-  const theta = 0.5 * Math.atan2(2 * ixy, ixx - iyy);
+  // Symmetric shapes leave the axis (a disc, a square) or its direction (a rectangle, a gore) to rounding;
+  // then vertex order decides, which a rigid motion or a scale of the input does not change.
+  const size = Math.sqrt(area);
+  const tieRel = 1e-9;
+  const anisotropy = Math.hypot(ixx - iyy, 2 * ixy);
+  let theta = 0.5 * Math.atan2(2 * ixy, ixx - iyy);
+  if (!(anisotropy > tieRel * (ixx + iyy))) {
+    theta = Math.atan2(out[1] - cym, out[0] - cxm);
+  }
   let c = Math.cos(theta);
   let s = Math.sin(theta);
   // Third moment along the new x axis, from triangle centroids: picks which end of the axis is +x.
@@ -60,7 +69,18 @@ export function canonicalPose(uv: Float64Array, triangles: Uint32Array): Float64
     const x = (c * (sx / 3 - cxm) + s * (sy / 3 - cym));
     skew += a * x * x * x;
   }
-  if (skew < 0) {
+  let flipAxis = skew < 0;
+  if (!(Math.abs(skew) > tieRel * area * size * size * size)) {
+    // First vertex clearly off the centre line goes to −x.
+    for (let i = 0; i < out.length; i += 2) {
+      const x = c * (out[i] - cxm) + s * (out[i + 1] - cym);
+      if (Math.abs(x) > 1e-6 * size) {
+        flipAxis = x > 0;
+        break;
+      }
+    }
+  }
+  if (flipAxis) {
     c = -c;
     s = -s;
   }
