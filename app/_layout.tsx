@@ -25,7 +25,7 @@ export default function RootLayout() {
   return (
     <SafeAreaProvider>
       <QueryClientProvider client={queryClient}>
-        <SafeAreaView style={{ flex: 1, backgroundColor: palette.bench }}>
+        <SafeAreaView style={{ flex: 1, backgroundColor: palette.paper }}>
           <Slot />
         </SafeAreaView>
       </QueryClientProvider>

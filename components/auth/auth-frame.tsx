@@ -6,6 +6,7 @@ import { ScrollView, StyleSheet, View } from 'react-native';
 import { useWideLayout } from '../../hooks/use-wide-layout';
 import { FoamEdge } from '../ui/foam-edge';
 import { FoamMark } from '../ui/foam-mark';
+import { PageTitle } from '../ui/page-title';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
 
@@ -53,6 +54,7 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
   const wide = useWideLayout();
   return (
     <View style={[styles.root, wide && styles.rootWide]}>
+      <PageTitle title={title} />
       <Brand wide={wide} />
       {wide ? null : <FoamEdge height={6} />}
       <ScrollView

@@ -11,6 +11,7 @@ import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
+import { PageTitle } from '../ui/page-title';
 import { Screen } from '../ui/screen';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
@@ -75,6 +76,7 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
   const can = targetMembership ? buildPermissionsFor(targetMembership.role) : buildPermissionsFor('viewer');
   return (
     <Screen>
+      <PageTitle title={b.name} />
       {back}
       <Text variant="overline">{targetMembership?.shopName ?? 'Build'}</Text>
       <Text variant="display" heading={1} style={styles.title}>

@@ -9,6 +9,7 @@ import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
+import { PageTitle } from '../ui/page-title';
 import { Screen } from '../ui/screen';
 import { Text } from '../ui/text';
 import { space } from '../ui/theme';
@@ -44,6 +45,7 @@ export function BuildsListScreen() {
   if (!membership) {
     return (
       <Screen>
+        <PageTitle title="Builds" />
         <Text variant="display" heading={1} style={styles.title}>
           Builds
         </Text>
@@ -56,6 +58,7 @@ export function BuildsListScreen() {
   const can = buildPermissionsFor(membership.role);
   return (
     <Screen>
+      <PageTitle title={`Builds – ${membership.shopName}`} />
       <Text variant="overline">{membership.shopName}</Text>
       <Text variant="display" heading={1} style={styles.title}>
         Builds

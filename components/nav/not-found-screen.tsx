@@ -4,6 +4,7 @@
 import { Link, usePathname } from 'expo-router';
 import { StyleSheet } from 'react-native';
 import { FoamMark } from '../ui/foam-mark';
+import { PageTitle } from '../ui/page-title';
 import { Screen } from '../ui/screen';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
@@ -13,6 +14,7 @@ export function NotFoundScreen() {
   const path = usePathname();
   return (
     <Screen>
+      <PageTitle title="No page here" />
       <FoamMark size={40} />
       <Text variant="display" heading={1} style={styles.title}>
         No page here
