@@ -1,10 +1,13 @@
 import { GeometryError } from '../errors';
 import type { TriMesh } from '../mesh/tri-mesh';
 import { arapFlatten } from './arap';
+import { boundaryLoops } from './boundary-loops';
 import { canonicalPose } from './canonical-pose';
 import { lscm } from './lscm';
+import { pieceTopology } from './piece-topology';
 import { signedAreas } from './signed-area';
 import { triangleStretch } from './triangle-stretch';
+import { tutteEmbedding } from './tutte-embedding';
 
 /** A piece laid flat. */
 export interface FlatPiece {
@@ -38,7 +41,9 @@ export const ARAP_MS_PER_TRIANGLE_ROUND = 4e-4;
 /**
  * Returns the least-stretch flattening of one piece (positions in mm): LSCM (Lévy et al. 2002) as the
  * start, scaled so its area equals the 3D area, then local/global ARAP (Liu et al. 2008), then the
- * canonical pose (see canonicalPose) with per-triangle stretch (Sander et al. 2001). The piece must be a
+ * canonical pose (see canonicalPose) with per-triangle stretch (Sander et al. 2001). Should the result
+ * still hold an inverted triangle, the flattening is redone from the barycentric embedding (Tutte 1963,
+ * Floater 1997; see tutteEmbedding) with twice the ARAP rounds and the one with fewer inversions is kept. The piece must be a
  * connected, consistently wound surface with at least one boundary loop (a disk, or a disk with holes).
  * Deterministic: the same piece gives the same numbers. Never returns NaN: throws GeometryError
  * FLATTEN_FAILED saying why (no boundary, separate parts, zero-area triangle, non-manifold edge, …).
@@ -56,18 +61,28 @@ export function flattenPiece(piece: TriMesh, opts: FlattenOptions = {}): FlatPie
     const perRound = ARAP_MS_PER_TRIANGLE_ROUND * (triangles.length / 3);
     rounds = Math.min(rounds, Math.max(1, Math.floor(opts.maxMillis / perRound)));
   }
-  const start = lscm(positions, triangles);
-
   const area3d = surfaceArea(positions, triangles);
-  let startArea = 0;
-  for (const a of signedAreas(start, triangles)) startArea += a;
-  if (!(Math.abs(startArea) > 0) || !Number.isFinite(startArea)) {
-    throw new GeometryError('FLATTEN_FAILED', 'conformal start collapsed to zero area: the piece may be folded onto itself');
+  let flat = arapFlatten(positions, triangles, scaledToArea(lscm(positions, triangles), triangles, area3d), {
+    iterations: rounds,
+  });
+  let flips = countInverted(flat, triangles);
+  if (flips > 0) {
+    // Rare: the conformal start (two pins) folded somewhere and ARAP could not unfold it. Restart from the
+    // barycentric embedding, which has no inverted triangle on a disk, so the flip-guarded ARAP keeps none.
+    const topo = pieceTopology(positions, triangles);
+    const outer = boundaryLoops(positions, triangles, topo.boundary)[0];
+    const retry = arapFlatten(
+      positions,
+      triangles,
+      scaledToArea(tutteEmbedding(positions, triangles, topo.twin, outer), triangles, area3d),
+      { iterations: 2 * rounds },
+    );
+    const retryFlips = countInverted(retry, triangles);
+    if (retryFlips < flips) {
+      flat = retry;
+      flips = retryFlips;
+    }
   }
-  const k = Math.sqrt(area3d / Math.abs(startArea));
-  for (let i = 0; i < start.length; i++) start[i] *= k;
-
-  const flat = arapFlatten(positions, triangles, start, { iterations: rounds });
   const uv = canonicalPose(flat, triangles);
   for (let i = 0; i < uv.length; i++) {
     if (!Number.isFinite(uv[i])) {
@@ -87,6 +102,24 @@ export function flattenPiece(piece: TriMesh, opts: FlattenOptions = {}): FlatPie
     area2d,
     area3d,
   };
+}
+
+/** `uv` scaled in place about the origin so its total area equals `area3d`. */
+function scaledToArea(uv: Float64Array, triangles: Uint32Array, area3d: number): Float64Array {
+  let area = 0;
+  for (const a of signedAreas(uv, triangles)) area += a;
+  if (!(Math.abs(area) > 0) || !Number.isFinite(area)) {
+    throw new GeometryError('FLATTEN_FAILED', 'the starting flattening collapsed to zero area: the piece may be folded onto itself');
+  }
+  const k = Math.sqrt(area3d / Math.abs(area));
+  for (let i = 0; i < uv.length; i++) uv[i] *= k;
+  return uv;
+}
+
+function countInverted(uv: Float64Array, triangles: Uint32Array): number {
+  let n = 0;
+  for (const a of signedAreas(uv, triangles)) if (!(a > 0)) n++;
+  return n;
 }
 
 function surfaceArea(positions: Float64Array, triangles: Uint32Array): number {

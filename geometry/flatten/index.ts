@@ -6,3 +6,5 @@ export { canonicalPose } from './canonical-pose';
 export { cotanWeights } from './cotan-weights';
 export { pieceTopology, type PieceTopology } from './piece-topology';
 export { signedAreas } from './signed-area';
+export { tutteEmbedding } from './tutte-embedding';
+export { boundaryLoops } from './boundary-loops';
