@@ -1,0 +1,102 @@
+/**
+ * The database schema: the source of truth for tables. Migrations in drizzle/ are generated from this file
+ * with `npm run db:generate` and committed; never edit a generated migration by hand.
+ */
+import { sql } from 'drizzle-orm';
+import {
+  bigserial,
+  boolean,
+  check,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import { ROLES } from './validation';
+
+/** Role of a person inside one shop: owner (runs it), editor (crew at the bench), viewer (commission client). */
+export const shopRole = pgEnum('shop_role', ROLES);
+
+export const users = pgTable(
+  'users',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    email: text('email').notNull().unique(),
+    name: text('name').notNull(),
+    passwordHash: text('password_hash').notNull(),
+    isAdmin: boolean('is_admin').notNull().default(false),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  // E-mail addresses are compared case-insensitively by people; storing them lower-case keeps the unique
+  // index meaningful without a functional index.
+  (t) => [check('users_email_lower_case', sql`${t.email} = lower(${t.email})`)],
+);
+
+export const shops = pgTable('shops', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  name: text('name').notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+export const memberships = pgTable(
+  'memberships',
+  {
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    shopId: uuid('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    role: shopRole('role').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.shopId] }), index('memberships_shop_idx').on(t.shopId)],
+);
+
+/** A build is one project of a shop (a helmet, a pair of pauldrons); later issues hang sculpts and patterns off it. */
+export const builds = pgTable(
+  'builds',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    shopId: uuid('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('builds_shop_created_idx').on(t.shopId, t.createdAt.desc())],
+);
+
+/**
+ * Who did what, kept after the thing itself is gone: deleting a shop or a user keeps their entries with the
+ * reference set to null, and `detail` records names as they were.
+ */
+export const auditLog = pgTable(
+  'audit_log',
+  {
+    id: bigserial('id', { mode: 'number' }).primaryKey(),
+    shopId: uuid('shop_id').references(() => shops.id, { onDelete: 'set null' }),
+    userId: uuid('user_id').references(() => users.id, { onDelete: 'set null' }),
+    action: text('action').notNull(),
+    target: text('target').notNull(),
+    detail: jsonb('detail').$type<Record<string, unknown>>().notNull().default({}),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('audit_log_shop_at_idx').on(t.shopId, t.at.desc())],
+);
+
+/**
+ * Failed sign-in counters shared by every API server (the servers keep no state of their own), one row per
+ * client key and window.
+ */
+export const rateLimitHits = pgTable('rate_limit_hits', {
+  key: text('key').primaryKey(),
+  hits: integer('hits').notNull(),
+  resetAt: timestamp('reset_at', { withTimezone: true }).notNull(),
+});

@@ -1,0 +1,9 @@
+import { defineConfig } from 'drizzle-kit';
+
+// Migrations are generated from db/schema.ts into drizzle/ and committed; db/migrate.ts applies them.
+export default defineConfig({
+  dialect: 'postgresql',
+  schema: './db/schema.ts',
+  out: './drizzle',
+  dbCredentials: { url: process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/sheetsmith' },
+});

@@ -1,0 +1,97 @@
+/**
+ * Builds the Express application: security headers, logging, JSON bodies, every API route through the access
+ * table, the web app, and the one error handler. Tests drive it in-process; server/index.ts makes it listen.
+ */
+import cookieParser from 'cookie-parser';
+import express, { type Express, type Request } from 'express';
+import helmet from 'helmet';
+import type { Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import type { Pool } from 'pg';
+import type { Db } from '../db/client';
+import { adminRoutes } from './admin/router';
+import { auditRoutes } from './audit/router';
+import { createAccessGuard } from './auth/guard';
+import { authRoutes } from './auth/router';
+import { sessionKey } from './auth/session';
+import type { SignInLimitOptions } from './auth/sign-in-limit';
+import { buildRoutes } from './builds/router';
+import type { Env } from './env';
+import { AppError, errorHandler } from './errors';
+import { mountRoutes, type MountableRoute } from './http/define-route';
+import { healthRoutes } from './http/health';
+import { webAppRouter } from './http/web-app';
+import { createLogger } from './logger';
+import { shopRoutes } from './shops/router';
+
+export interface AppDeps {
+  env: Env;
+  pool: Pool;
+  db: Db;
+  /** HS256 key material, at least 32 characters. */
+  sessionSecret: string;
+  logger?: Logger;
+  /** Overrides the sign-in limit from the environment (tests use a small one). */
+  signInLimit?: SignInLimitOptions;
+}
+
+/** Returns every API route of the server (used to mount them and by the tests that walk the access table). */
+export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean): MountableRoute[] {
+  const key = sessionKey(deps.sessionSecret);
+  const signInLimit = deps.signInLimit ?? { max: deps.env.SIGNIN_RATE_LIMIT, windowMs: deps.env.SIGNIN_RATE_WINDOW_MINUTES * 60_000 };
+  return [
+    ...healthRoutes(deps.pool),
+    ...authRoutes({ db: deps.db, sessionKey: key, cookieSecure, signInLimit }),
+    ...shopRoutes(deps.db),
+    ...buildRoutes(deps.db),
+    ...auditRoutes(deps.db),
+    ...adminRoutes(deps.db),
+  ];
+}
+
+/**
+ * The Content-Security-Policy: the exported web bundle loads its scripts from this origin and sets inline
+ * styles; the 3D viewer needs blob:/data: images and workers and WebAssembly compilation.
+ */
+const CSP_DIRECTIVES = {
+  defaultSrc: ["'self'"],
+  scriptSrc: ["'self'", "'wasm-unsafe-eval'"],
+  styleSrc: ["'self'", "'unsafe-inline'"],
+  imgSrc: ["'self'", 'data:', 'blob:'],
+  fontSrc: ["'self'", 'data:'],
+  workerSrc: ["'self'", 'blob:'],
+  connectSrc: ["'self'", 'blob:', 'data:'],
+  objectSrc: ["'none'"],
+  baseUri: ["'self'"],
+  formAction: ["'self'"],
+  frameAncestors: ["'none'"],
+  // Plain http on loopback is the normal local set-up; upgrading it would break every request.
+  upgradeInsecureRequests: null,
+};
+
+/** Returns the configured Express app; it holds no state besides what `deps` hold. */
+export function createApp(deps: AppDeps): Express {
+  const logger = deps.logger ?? createLogger(deps.env.LOG_LEVEL, 'api');
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', deps.env.TRUST_PROXY === 'false' ? false : deps.env.TRUST_PROXY);
+  const cookieSecure = (req: Request) => (deps.env.COOKIE_SECURE === 'auto' ? req.secure : deps.env.COOKIE_SECURE === 'true');
+
+  app.use(helmet({ contentSecurityPolicy: { useDefaults: true, directives: CSP_DIRECTIVES } }));
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+
+  const api = express.Router();
+  mountRoutes(api, allRoutes(deps, cookieSecure), createAccessGuard({ db: deps.db, sessionKey: sessionKey(deps.sessionSecret), cookieSecure }));
+  app.use(api);
+  app.use('/api', (req, _res, next) => {
+    next(new AppError('NOT_FOUND', 404, `There is no API route ${req.method} ${req.originalUrl}`));
+  });
+  app.use(webAppRouter(deps.env.WEB_ROOT));
+  app.use((req, _res, next) => {
+    next(new AppError('NOT_FOUND', 404, `Nothing is served at ${req.method} ${req.originalUrl}`));
+  });
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -1,0 +1,79 @@
+/**
+ * Who may call which route, kept as data. Every route the server mounts must appear here with the same
+ * rule (server/http/define-route.ts refuses to start otherwise), and the tests walk this table.
+ */
+import type { Role } from '../../db/validation';
+
+/**
+ * - `public`: anyone, signed in or not.
+ * - `signedIn`: any signed-in person.
+ * - `{ shopRole }`: a member of the shop named by `:shopId` with at least that role (owner > editor > viewer);
+ *   a site admin may also read (GET) any shop.
+ * - `admin`: site admins only.
+ */
+export type AccessRule = 'public' | 'signedIn' | 'admin' | { shopRole: Role };
+
+export type HttpMethod = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+
+export interface RouteAccess {
+  method: HttpMethod;
+  path: string;
+  access: AccessRule;
+}
+
+export const ROUTE_ACCESS: readonly RouteAccess[] = [
+  { method: 'GET', path: '/api/health', access: 'public' },
+  { method: 'POST', path: '/api/auth/signup', access: 'public' },
+  { method: 'POST', path: '/api/auth/signin', access: 'public' },
+  { method: 'POST', path: '/api/auth/signout', access: 'signedIn' },
+  { method: 'GET', path: '/api/me', access: 'signedIn' },
+  { method: 'POST', path: '/api/shops', access: 'signedIn' },
+  { method: 'GET', path: '/api/shops/:shopId', access: { shopRole: 'viewer' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds', access: { shopRole: 'viewer' } },
+  { method: 'POST', path: '/api/shops/:shopId/builds', access: { shopRole: 'editor' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'viewer' } },
+  { method: 'PATCH', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'editor' } },
+  { method: 'DELETE', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/shops/:shopId/audit', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/admin/users', access: 'admin' },
+];
+
+const ROLE_RANK: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };
+
+/** Returns whether `role` is at least `needed` in the order viewer < editor < owner. */
+export function roleAtLeast(role: Role, needed: Role): boolean {
+  return ROLE_RANK[role] >= ROLE_RANK[needed];
+}
+
+/** Returns the rule as one readable word, e.g. "public" or "shop editor" (for messages and test names). */
+export function describeAccess(rule: AccessRule): string {
+  return typeof rule === 'string' ? rule : `shop ${rule.shopRole}`;
+}
+
+/** Returns whether two rules are the same. */
+export function sameAccess(a: AccessRule, b: AccessRule): boolean {
+  return describeAccess(a) === describeAccess(b);
+}
+
+export interface Caller {
+  signedIn: boolean;
+  isAdmin: boolean;
+  /** The caller's role in the shop the route names; null when not a member or no shop is named. */
+  shopRole: Role | null;
+}
+
+export type AccessDecision = 'allow' | 'unauthenticated' | 'forbidden';
+
+/**
+ * Returns whether `caller` may make a `method` request under `rule`. Admins read any shop but write only
+ * where they are members, so a slip in the admin screens cannot change a shop's work.
+ */
+export function decideAccess(rule: AccessRule, method: HttpMethod, caller: Caller): AccessDecision {
+  if (rule === 'public') return 'allow';
+  if (!caller.signedIn) return 'unauthenticated';
+  if (rule === 'signedIn') return 'allow';
+  if (rule === 'admin') return caller.isAdmin ? 'allow' : 'forbidden';
+  if (caller.shopRole && roleAtLeast(caller.shopRole, rule.shopRole)) return 'allow';
+  if (caller.isAdmin && method === 'GET') return 'allow';
+  return 'forbidden';
+}

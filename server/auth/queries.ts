@@ -1,0 +1,61 @@
+/** Drizzle queries for people, their shops and memberships as needed by sign-in and access checks. */
+import { and, eq } from 'drizzle-orm';
+import type { DbExecutor } from '../../db/client';
+import { memberships, shops, users } from '../../db/schema';
+import type { Role } from '../../db/validation';
+
+const publicUserColumns = { id: users.id, email: users.email, name: users.name, isAdmin: users.isAdmin };
+
+/** Returns the user with `email` (already lower-case) including the password hash, or null. */
+export async function selectUserForSignIn(db: DbExecutor, email: string) {
+  const rows = await db.select({ ...publicUserColumns, passwordHash: users.passwordHash }).from(users).where(eq(users.email, email));
+  return rows[0] ?? null;
+}
+
+/** Returns the user's public fields, or null when there is no such user. */
+export async function selectUserById(db: DbExecutor, id: string) {
+  const rows = await db.select(publicUserColumns).from(users).where(eq(users.id, id));
+  return rows[0] ?? null;
+}
+
+/** Inserts a user and returns its public fields; null when the e-mail is already taken. */
+export async function insertUser(db: DbExecutor, user: { email: string; name: string; passwordHash: string; isAdmin?: boolean }) {
+  const rows = await db.insert(users).values(user).onConflictDoNothing({ target: users.email }).returning(publicUserColumns);
+  return rows[0] ?? null;
+}
+
+/** Inserts a shop and returns it. */
+export async function insertShop(db: DbExecutor, name: string) {
+  const rows = await db.insert(shops).values({ name }).returning({ id: shops.id, name: shops.name });
+  return rows[0];
+}
+
+/** Adds `userId` to `shopId` with `role`. */
+export async function insertMembership(db: DbExecutor, userId: string, shopId: string, role: Role): Promise<void> {
+  await db.insert(memberships).values({ userId, shopId, role });
+}
+
+/** Returns the user's memberships with shop names, ordered by shop name. */
+export function selectMembershipsOfUser(db: DbExecutor, userId: string) {
+  return db
+    .select({ shopId: memberships.shopId, shopName: shops.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(shops, eq(shops.id, memberships.shopId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(shops.name, shops.id);
+}
+
+/** Returns the user's role in the shop, or null when not a member. */
+export async function selectMembershipRole(db: DbExecutor, userId: string, shopId: string): Promise<Role | null> {
+  const rows = await db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.userId, userId), eq(memberships.shopId, shopId)));
+  return rows[0]?.role ?? null;
+}
+
+/** Returns whether a shop with this id exists. */
+export async function shopExists(db: DbExecutor, shopId: string): Promise<boolean> {
+  const rows = await db.select({ id: shops.id }).from(shops).where(eq(shops.id, shopId));
+  return rows.length > 0;
+}

@@ -1,0 +1,55 @@
+/** HTTP routes for a shop's builds. */
+import type { Db } from '../../db/client';
+import { buildCreateBody, buildRenameBody } from '../../db/validation';
+import { defineRoute, type MountableRoute } from '../http/define-route';
+import { buildParams, shopParams } from '../http/params';
+import { createBuild, getBuild, listBuilds, removeBuild, renameBuild } from './service';
+
+/** Returns the build routes. */
+export function buildRoutes(db: Db): MountableRoute[] {
+  return [
+    defineRoute({
+      method: 'GET',
+      path: '/api/shops/:shopId/builds',
+      access: { shopRole: 'viewer' },
+      params: shopParams,
+      handler: async ({ shop }) => ({ status: 200, json: { builds: await listBuilds(db, shop.id) } }),
+    }),
+    defineRoute({
+      method: 'POST',
+      path: '/api/shops/:shopId/builds',
+      access: { shopRole: 'editor' },
+      params: shopParams,
+      body: buildCreateBody,
+      handler: async ({ user, shop, body }) => ({ status: 201, json: { build: await createBuild(db, user, shop.id, body.name) } }),
+    }),
+    defineRoute({
+      method: 'GET',
+      path: '/api/shops/:shopId/builds/:buildId',
+      access: { shopRole: 'viewer' },
+      params: buildParams,
+      handler: async ({ shop, params }) => ({ status: 200, json: { build: await getBuild(db, shop.id, params.buildId) } }),
+    }),
+    defineRoute({
+      method: 'PATCH',
+      path: '/api/shops/:shopId/builds/:buildId',
+      access: { shopRole: 'editor' },
+      params: buildParams,
+      body: buildRenameBody,
+      handler: async ({ user, shop, params, body }) => ({
+        status: 200,
+        json: { build: await renameBuild(db, user, shop.id, params.buildId, body.name) },
+      }),
+    }),
+    defineRoute({
+      method: 'DELETE',
+      path: '/api/shops/:shopId/builds/:buildId',
+      access: { shopRole: 'owner' },
+      params: buildParams,
+      handler: async ({ user, shop, params }) => {
+        await removeBuild(db, user, shop.id, params.buildId);
+        return { status: 204 };
+      },
+    }),
+  ];
+}

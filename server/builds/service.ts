@@ -1,0 +1,58 @@
+/** Build rules: create, rename and delete are recorded in the shop's audit trail in the same transaction. */
+import type { Db } from '../../db/client';
+import { recordAudit } from '../audit/service';
+import { notFound, type SessionUser } from '../http/define-route';
+import { deleteBuild, insertBuild, selectBuild, selectBuilds, updateBuildName, type BuildRow } from './queries';
+
+export interface BuildView {
+  id: string;
+  shopId: string;
+  name: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+function toView(row: BuildRow): BuildView {
+  return { id: row.id, shopId: row.shopId, name: row.name, createdAt: row.createdAt.toISOString(), updatedAt: row.updatedAt.toISOString() };
+}
+
+/** Returns the shop's builds, newest first. */
+export async function listBuilds(db: Db, shopId: string): Promise<BuildView[]> {
+  return (await selectBuilds(db, shopId)).map(toView);
+}
+
+/** Returns one build; throws 404 NOT_FOUND when the shop has no such build. */
+export async function getBuild(db: Db, shopId: string, buildId: string): Promise<BuildView> {
+  const row = await selectBuild(db, shopId, buildId);
+  if (!row) throw notFound('Build');
+  return toView(row);
+}
+
+/** Creates a build named `name` in the shop and returns it. */
+export function createBuild(db: Db, user: SessionUser, shopId: string, name: string): Promise<BuildView> {
+  return db.transaction(async (tx) => {
+    const row = await insertBuild(tx, shopId, name);
+    await recordAudit(tx, { shopId, userId: user.id, action: 'build.create', target: `build:${row.id}`, detail: { name } });
+    return toView(row);
+  });
+}
+
+/** Renames a build and returns it; throws 404 NOT_FOUND when the shop has no such build. */
+export function renameBuild(db: Db, user: SessionUser, shopId: string, buildId: string, name: string): Promise<BuildView> {
+  return db.transaction(async (tx) => {
+    const before = await selectBuild(tx, shopId, buildId);
+    const row = before ? await updateBuildName(tx, shopId, buildId, name) : null;
+    if (!before || !row) throw notFound('Build');
+    await recordAudit(tx, { shopId, userId: user.id, action: 'build.rename', target: `build:${buildId}`, detail: { from: before.name, to: name } });
+    return toView(row);
+  });
+}
+
+/** Deletes a build; throws 404 NOT_FOUND when the shop has no such build. */
+export function removeBuild(db: Db, user: SessionUser, shopId: string, buildId: string): Promise<void> {
+  return db.transaction(async (tx) => {
+    const row = await deleteBuild(tx, shopId, buildId);
+    if (!row) throw notFound('Build');
+    await recordAudit(tx, { shopId, userId: user.id, action: 'build.delete', target: `build:${buildId}`, detail: { name: row.name } });
+  });
+}
