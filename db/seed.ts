@@ -80,6 +80,7 @@ async function main(): Promise<void> {
   try {
     const seeded = await seedDemoIfEmpty(createDb(pool));
     console.log(seeded ? `seed: demo shop "${DEMO_SHOP_NAME}" created` : 'seed: the database already has users; demo not added');
+    if (process.argv.includes('--print-sign-ins')) console.log(['Demo sign-ins (role, e-mail, password):', ...demoSignInLines()].join('\n'));
   } finally {
     await pool.end();
   }

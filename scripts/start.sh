@@ -1,0 +1,115 @@
+#!/usr/bin/env bash
+# `npm start`: everything Sheetsmith needs on one machine, then the API server (which also serves the web
+# app) and a worker.
+#
+#   npm start                 run in the foreground; Ctrl-C stops the server and the worker
+#   npm start -- --detach     run in the background (pids and logs under .data/), then return
+#   npm start -- --stop       stop a detached run
+#
+# Steps, each skipped when already done: npm packages, PostgreSQL (Debian's packages, a private cluster on
+# 127.0.0.1:54329), migrations, demo data (only into an empty database), the web build (only when its sources
+# changed), then the processes. Settings: PORT (8470), DATABASE_URL, SESSION_SECRET, LOG_LEVEL.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+source scripts/setup.sh
+
+PORT="${PORT:-8470}"
+HOST="${HOST:-127.0.0.1}"
+URL="http://$HOST:$PORT"
+RUN_DIR=.data/run
+LOG_DIR=.data/logs
+mode=foreground
+case "${1:-}" in
+  --detach) mode=detach ;;
+  --stop) mode=stop ;;
+  "") ;;
+  *) echo "start: unknown option '$1' (use --detach or --stop)" >&2; exit 2 ;;
+esac
+
+stop_detached() {
+  local name pid stopped=0
+  for name in api worker; do
+    [ -f "$RUN_DIR/$name.pid" ] || continue
+    pid=$(cat "$RUN_DIR/$name.pid")
+    if kill -0 "$pid" 2>/dev/null; then kill -TERM "$pid" && stopped=1; fi
+    rm -f "$RUN_DIR/$name.pid"
+  done
+  if [ "$stopped" = 1 ]; then echo "start: stopped the detached server and worker"; else echo "start: nothing was running"; fi
+}
+
+if [ "$mode" = stop ]; then stop_detached; exit 0; fi
+
+api_answers() {
+  node -e "fetch('$URL/api/health').then(r => r.json()).then(j => process.exit(j.status === 'ok' ? 0 : 1), () => process.exit(1))" 2>/dev/null
+}
+
+print_welcome() {
+  echo
+  echo "Sheetsmith is running at $URL"
+  node --import tsx db/seed.ts --print-sign-ins | sed -n '/^Demo sign-ins/,$p'
+  echo "Logs: $LOG_DIR/api.log and $LOG_DIR/worker.log"
+}
+
+ensure_node_deps
+bash scripts/postgres.sh sheetsmith
+export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:54329/sheetsmith}"
+node --import tsx db/migrate.ts
+node --import tsx db/seed.ts
+ensure_session_secret
+ensure_web_build || echo "start: continuing without a fresh web build" >&2
+
+if api_answers; then
+  echo "start: Sheetsmith already answers at $URL (stop it with Ctrl-C in its terminal, or npm start -- --stop)"
+  print_welcome
+  exit 0
+fi
+
+mkdir -p "$RUN_DIR" "$LOG_DIR"
+export PORT HOST
+node --import tsx server/index.ts >>"$LOG_DIR/api.log" 2>&1 &
+api_pid=$!
+node --import tsx server/worker.ts >>"$LOG_DIR/worker.log" 2>&1 &
+worker_pid=$!
+
+for _ in $(seq 1 120); do
+  api_answers && break
+  if ! kill -0 "$api_pid" 2>/dev/null; then
+    echo "start: the API server stopped during start-up; the end of $LOG_DIR/api.log says:" >&2
+    tail -n 20 "$LOG_DIR/api.log" >&2
+    kill -TERM "$worker_pid" 2>/dev/null || true
+    exit 1
+  fi
+  sleep 0.25
+done
+if ! api_answers; then
+  echo "start: the API server did not answer at $URL within 30 s; see $LOG_DIR/api.log" >&2
+  kill -TERM "$api_pid" "$worker_pid" 2>/dev/null || true
+  exit 1
+fi
+
+if [ "$mode" = detach ]; then
+  echo "$api_pid" > "$RUN_DIR/api.pid"
+  echo "$worker_pid" > "$RUN_DIR/worker.pid"
+  print_welcome
+  echo "Running in the background; stop with: npm start -- --stop"
+  exit 0
+fi
+
+shutdown() {
+  trap - INT TERM
+  echo
+  echo "start: stopping the server and the worker"
+  kill -TERM "$api_pid" "$worker_pid" 2>/dev/null || true
+  wait "$api_pid" "$worker_pid" 2>/dev/null || true
+  exit 0
+}
+trap shutdown INT TERM
+print_welcome
+echo "Press Ctrl-C to stop."
+set +e
+wait -n "$api_pid" "$worker_pid"
+status=$?
+echo "start: a process stopped unexpectedly (exit $status); see $LOG_DIR/" >&2
+kill -TERM "$api_pid" "$worker_pid" 2>/dev/null
+wait
+exit 1

@@ -1,0 +1,54 @@
+#!/usr/bin/env bash
+# `npm test`: the same set-up as npm start, with a separate database `sheetsmith_test` dropped and recreated
+# on each run, then every test (or the ones named: npm test -- tests/server). Ends with a plain line
+# "N passed, N failed" and a non-zero exit status when anything failed.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+source scripts/setup.sh
+source scripts/postgres.sh
+
+# Two runs at once would drop each other's database.
+mkdir -p .cache
+exec 8>"/var/tmp/sheetsmith-test-run.lock"
+if ! flock -n 8; then
+  echo "test: another test run holds the test database; waiting for it to finish" >&2
+  flock 8
+fi
+
+ensure_node_deps
+bash scripts/postgres.sh
+PG_BIN=$(pg_find_bin)
+TEST_DB=sheetsmith_test
+pg_recreate_database "$TEST_DB"
+export DATABASE_URL
+DATABASE_URL=$(pg_url "$TEST_DB")
+node --import tsx db/migrate.ts
+ensure_web_build || echo "test: the browser tests will use whatever dist/ holds" >&2
+
+if [ ! -x /usr/bin/chromium ]; then
+  if [ "$(id -u)" -eq 0 ]; then
+    echo "test: installing Chromium from Debian's packages for the browser tests" >&2
+    apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+  else
+    echo "test: /usr/bin/chromium is missing and this is not root; the browser tests will fail (sudo apt-get install chromium)" >&2
+  fi
+fi
+
+export NODE_ENV=test NO_COLOR=1
+report=.cache/vitest-report.json
+rm -f "$report"
+set +e
+npx vitest run --reporter=default --reporter=json --outputFile="$report" "$@"
+status=$?
+set -e
+if [ -s "$report" ]; then
+  node -e "
+    const r = require('./$report');
+    console.log(r.numPassedTests + ' passed, ' + r.numFailedTests + ' failed');
+    process.exit(r.numFailedTests > 0 || !r.success ? 1 : 0);
+  " || status=1
+else
+  echo "0 passed, 0 failed (vitest wrote no report; exit status $status)"
+  [ "$status" -ne 0 ] || status=1
+fi
+exit "$status"
