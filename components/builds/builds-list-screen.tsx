@@ -50,7 +50,7 @@ export function BuildsListScreen() {
           Builds
         </Text>
         <Notice tone="note" title="You are not in any shop">
-          Open a shop of your own with the shop switcher above, or ask a shop owner to add you.
+          Open a shop of your own from the shop switcher (“Open another shop”), or ask a shop owner to add you.
         </Notice>
       </Screen>
     );

@@ -55,6 +55,11 @@ function SideBar({ user }: { user: User }) {
           {user.email}
         </Text>
         {membership ? <RoleBadge role={membership.role} style={styles.sideBadge} /> : null}
+        {user.isAdmin ? (
+          <Text variant="mono" style={styles.sand}>
+            Site admin
+          </Text>
+        ) : null}
         <SignOutButton dark />
       </View>
     </View>
@@ -106,6 +111,7 @@ const styles = StyleSheet.create({
   page: { flex: 1 },
   onBench: { color: palette.onBench },
   onBenchSoft: { color: palette.onBenchSoft },
+  sand: { color: palette.sand },
   side: { width: 272, backgroundColor: palette.bench, padding: space.xl, gap: space.xl },
   sideBrand: { flexDirection: 'row', alignItems: 'center', gap: space.md },
   sideLinks: { gap: space.xs },
