@@ -35,7 +35,7 @@ export interface TestContext {
 }
 
 /** Returns an app over the test database, with a fresh random session secret; `close` ends the pool. */
-export async function makeTestApp(overrides: Partial<Omit<AppDeps, 'pool' | 'db'>> & { env?: Record<string, string> } = {}): Promise<TestContext> {
+export async function makeTestApp(overrides: Partial<Omit<AppDeps, 'pool' | 'db' | 'env'>> & { env?: Record<string, string> } = {}): Promise<TestContext> {
   assertTestDatabase(TEST_DATABASE_URL);
   const pool = createPool(TEST_DATABASE_URL, 5);
   try {
