@@ -1,3 +1,4 @@
+/** Any address the app does not know. */
 import { NotFoundScreen } from '../components/nav/not-found-screen';
 
 export default function NotFoundRoute() {

@@ -1,3 +1,4 @@
+/** /sign-in: the sign-in form. */
 import { SignInScreen } from '../../components/auth/sign-in-screen';
 
 export default function SignInRoute() {

@@ -5,18 +5,16 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
-import { buildNameField, type BuildCreateBody } from '../../db/validation';
+import { buildCreateBody, buildRenameBody, type BuildCreateBody } from '../../db/validation';
 import { applyServerErrors } from '../../hooks/form-errors';
 import { Button } from '../ui/button';
 import { FormTextField } from '../ui/form-text-field';
 import { Notice } from '../ui/notice';
 import { space } from '../ui/theme';
-import { z } from 'zod';
-
-// buildCreateBody and buildRenameBody share this shape; one form serves both.
-const buildNameBody = z.object({ name: buildNameField });
 
 export interface BuildNameFormProps {
+  /** The server's schema for this request: buildCreateBody to start a build, buildRenameBody to rename one. */
+  schema: typeof buildCreateBody | typeof buildRenameBody;
   label: string;
   submitLabel: string;
   initialName?: string;
@@ -33,14 +31,14 @@ export interface BuildNameFormProps {
 }
 
 /**
- * A build-name field checked by the server's schema (1–120 characters after trimming) with a submit button
- * and, when `onCancel` is given, a cancel button.
+ * A build-name field checked by `schema`, the same one the server applies (1–120 characters after trimming),
+ * with a submit button and, when `onCancel` is given, a cancel button.
  */
-export function BuildNameForm({ label, submitLabel, initialName = '', placeholder, onSave, onSaved, onCancel, clearOnSave, autoFocus }: BuildNameFormProps) {
+export function BuildNameForm({ schema, label, submitLabel, initialName = '', placeholder, onSave, onSaved, onCancel, clearOnSave, autoFocus }: BuildNameFormProps) {
   const [formError, setFormError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
   const { control, handleSubmit, setError, reset } = useForm({
-    resolver: zodResolver(buildNameBody),
+    resolver: zodResolver(schema),
     defaultValues: { name: initialName },
   });
   const submit = handleSubmit(async (body) => {

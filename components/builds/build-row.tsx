@@ -4,6 +4,7 @@
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { buildRenameBody } from '../../db/validation';
 import type { Build } from '../../hooks/api-types';
 import type { BuildPermissions } from '../../hooks/role-permissions';
 import { useDeleteBuild, useRenameBuild } from '../../hooks/use-builds';
@@ -32,6 +33,7 @@ export function BuildRow({ build, can }: { build: Build; can: BuildPermissions }
     <View role="listitem" accessibilityLabel={build.name} style={styles.row}>
       {mode === 'rename' ? (
         <BuildNameForm
+          schema={buildRenameBody}
           label={`New name for “${build.name}”`}
           submitLabel="Save name"
           autoFocus

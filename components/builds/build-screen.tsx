@@ -4,6 +4,7 @@
 import { Link, useRouter } from 'expo-router';
 import { useEffect, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { buildRenameBody } from '../../db/validation';
 import { useCurrentShop } from '../../hooks/current-shop';
 import { buildPermissionsFor } from '../../hooks/role-permissions';
 import { useBuild, useDeleteBuild, useRenameBuild } from '../../hooks/use-builds';
@@ -95,6 +96,7 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
       {mode === 'rename' ? (
         <Card style={styles.block}>
           <BuildNameForm
+            schema={buildRenameBody}
             label="Build name"
             submitLabel="Save name"
             autoFocus

@@ -2,6 +2,7 @@
  * The current shop's builds: start one, open one, rename or delete as the role allows.
  */
 import { StyleSheet, View } from 'react-native';
+import { buildCreateBody } from '../../db/validation';
 import { useCurrentShop } from '../../hooks/current-shop';
 import { buildPermissionsFor, roleLabels } from '../../hooks/role-permissions';
 import { useBuilds, useCreateBuild } from '../../hooks/use-builds';
@@ -24,6 +25,7 @@ function StartBuild({ shopId }: { shopId: string }) {
         Start a build
       </Text>
       <BuildNameForm
+        schema={buildCreateBody}
         label="Build name"
         placeholder="e.g. Ridge helmet, left pauldron"
         submitLabel="Start build"

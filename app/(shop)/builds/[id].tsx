@@ -1,3 +1,4 @@
+/** /builds/:id?shop=:shopId — one build; the shop id travels in the link so it opens in the right shop. */
 import { useLocalSearchParams } from 'expo-router';
 import { BuildScreen } from '../../../components/builds/build-screen';
 

@@ -1,3 +1,4 @@
+/** /builds: the current shop's builds. */
 import { BuildsListScreen } from '../../../components/builds/builds-list-screen';
 
 export default function BuildsRoute() {
