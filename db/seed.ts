@@ -2,10 +2,13 @@
  * Demo data: an invented prop shop, its owner, a crew member, a commission client, two builds, and a site
  * admin. Written only into an empty database (no users yet), so a second `npm start` never duplicates it
  * and never touches real accounts.
+ *
+ *   node --import tsx db/seed.ts [--migrate] [--print-sign-ins]
  */
 import { sql } from 'drizzle-orm';
 import { hashPassword } from '../server/auth/passwords';
-import { createDb, createPool, DEFAULT_DATABASE_URL, type Db } from './client';
+import { createDb, createPool, DEFAULT_DATABASE_URL, type Db, type DbExecutor } from './client';
+import { runMigrations } from './migrate';
 import { auditLog, builds, memberships, shops, users } from './schema';
 import type { Role } from './validation';
 
@@ -33,13 +36,18 @@ export const DEMO_BUILD_NAMES = ['Beetle knight helmet', 'Lantern bearer pauldro
 /** Arbitrary constant naming the advisory lock that keeps two seeders from both finding the table empty. */
 const SEED_LOCK_KEY = 7_340_826_002;
 
+async function hasUsers(db: DbExecutor): Promise<boolean> {
+  const rows = await db.select({ id: users.id }).from(users).limit(1);
+  return rows.length > 0;
+}
+
 /** Seeds the demo when the users table is empty; returns true when it wrote data, false when it left it alone. */
 export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
+  if (await hasUsers(db)) return false;
   const hashes = await Promise.all(DEMO_ACCOUNTS.map((a) => hashPassword(a.password)));
   return db.transaction(async (tx) => {
     await tx.execute(sql`SELECT pg_advisory_xact_lock(${SEED_LOCK_KEY})`);
-    const existing = await tx.select({ n: sql<number>`count(*)::int` }).from(users);
-    if (existing[0].n > 0) return false;
+    if (await hasUsers(tx)) return false;
 
     const people = await tx
       .insert(users)
@@ -78,6 +86,11 @@ export function demoSignInLines(): string[] {
 async function main(): Promise<void> {
   const pool = createPool(process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL, 2);
   try {
+    // `--migrate` saves start.sh a second process start: migrations, then the seed, in one run.
+    if (process.argv.includes('--migrate')) {
+      await runMigrations(pool);
+      console.log('migrate: database schema is up to date');
+    }
     const seeded = await seedDemoIfEmpty(createDb(pool));
     console.log(seeded ? `seed: demo shop "${DEMO_SHOP_NAME}" created` : 'seed: the database already has users; demo not added');
     if (process.argv.includes('--print-sign-ins')) console.log(['Demo sign-ins (role, e-mail, password):', ...demoSignInLines()].join('\n'));

@@ -34,7 +34,7 @@ web_sources_digest() {
 # Builds dist/ when stale. On a failed build the old dist/ (if any) stays and the server keeps serving it, or
 # answers "web app not built"; the log says why.
 ensure_web_build() {
-  if ! ls app/_layout.tsx app/_layout.jsx >/dev/null 2>&1; then
+  if [ ! -f app/_layout.tsx ] && [ ! -f app/_layout.jsx ]; then
     setup_log "no app/_layout.tsx yet: skipping the web build (the server answers 503 'web app not built')"
     return 0
   fi

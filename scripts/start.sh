@@ -46,15 +46,15 @@ api_answers() {
 print_welcome() {
   echo
   echo "Sheetsmith is running at $URL"
-  node --import tsx db/seed.ts --print-sign-ins | sed -n '/^Demo sign-ins/,$p'
+  sed -n '/^Demo sign-ins/,$p' <<<"$db_report"
   echo "Logs: $LOG_DIR/api.log and $LOG_DIR/worker.log"
 }
 
 ensure_node_deps
 bash scripts/postgres.sh sheetsmith
 export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:54329/sheetsmith}"
-node --import tsx db/migrate.ts
-node --import tsx db/seed.ts
+db_report=$(node --import tsx db/seed.ts --migrate --print-sign-ins)
+sed '/^Demo sign-ins/,$d' <<<"$db_report"
 ensure_session_secret
 ensure_web_build || echo "start: continuing without a fresh web build" >&2
 
