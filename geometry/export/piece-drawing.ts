@@ -213,10 +213,10 @@ export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTrans
     if (sl.path.length < 2) continue;
     const pts = sl.path.map(f);
     out.lines.push(line('score', pts));
-    const m = pointAlongPath(sl.path, pathLengthMm(sl.path) / 2);
-    const a = f(m.p);
-    const b = f([m.p[0] + m.tangent[0], m.p[1] + m.tangent[1]]);
-    out.texts.push({ layer: 'text', style: 'score', text: `score on inner face · fold ${sl.foldDeg.toFixed(0)}°`, at: f([m.p[0] - m.tangent[1] * 3, m.p[1] + m.tangent[0] * 3]), angleDeg: upright(b[0] - a[0], b[1] - a[1]), sizeMm: 2, weight: 'regular' });
+    const half = pointAlongPath(sl.path, pathLengthMm(sl.path) / 2);
+    const a = f(half.p);
+    const b = f([half.p[0] + half.tangent[0], half.p[1] + half.tangent[1]]);
+    out.texts.push({ layer: 'text', style: 'score', text: `score on inner face · fold ${sl.foldDeg.toFixed(0)}°`, at: f([half.p[0] - half.tangent[1] * 3, half.p[1] + half.tangent[0] * 3]), angleDeg: upright(b[0] - a[0], b[1] - a[1]), sizeMm: 2, weight: 'regular' });
   }
   for (const d of piece.darts ?? []) {
     if (d.path.length < 2) continue;
