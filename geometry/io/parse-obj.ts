@@ -1,7 +1,7 @@
 import { GeometryError } from '../errors';
 import type { ImportedModel } from '../mesh/tri-mesh';
 import { GrowableFloat64, GrowableInt32, GrowableUint32 } from './growable-array';
-import { checkNotBinary, DEFAULT_MAX_TRIANGLES, type ParseLimits } from './parse-limits';
+import { checkNotBinary, DEFAULT_MAX_TRIANGLES, isBinaryByte, type ParseLimits } from './parse-limits';
 import { TextScanner } from './text-scanner';
 import { triangulatePolygon } from './triangulate-polygon';
 
@@ -131,7 +131,8 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
           biggerT.set(polyT);
           polyT = biggerT;
         }
-        polyV[n] = resolve(s.integer('face index'), vCount, 'vertex');
+        const raw = s.integer('face index');
+        polyV[n] = raw > 0 && raw <= vCount ? raw - 1 : resolve(raw, vCount, 'vertex');
         polyT[n] = -1;
         if (b[s.pos] === SLASH) {
           s.pos++;
@@ -154,7 +155,10 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
         anyUv = true;
         for (let i = 0; i < triangles.length; i++) cornerUv.push(-1);
       }
-      if (n === 3) {
+      if (n === 3 && !anyUv && triangles.length < 3 * maxTriangles) {
+        triangles.push3(polyV[0], polyV[1], polyV[2]);
+        faceTags.push(currentTag);
+      } else if (n === 3) {
         pushTriangle(polyV[0], polyV[1], polyV[2], polyT[0], polyT[1], polyT[2]);
       } else {
         polygonsTriangulated++;
@@ -228,6 +232,9 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
       seamPolylines.push(Uint32Array.from(line));
       if (s.pos < s.end && b[s.pos] === HASH) s.skipLine();
       continue;
+    }
+    if (isBinaryByte(c)) {
+      throw new GeometryError('BINARY_GARBAGE', `OBJ line ${s.line}: the file contains binary data (byte ${c} at offset ${s.pos}); is it the right file?`, { line: s.line });
     }
     // Anything else (mtllib, usemtl, s, vp, curv, …) carries nothing the pattern needs.
     s.skipStatement();

@@ -217,6 +217,11 @@ export class TextScanner {
     const b = this.bytes;
     let p = start;
     while (p < this.end && p - start < 40 && b[p] !== SPACE && b[p] !== TAB && b[p] !== CR && b[p] !== LF) p++;
+    for (let i = start; i <= p && i < this.end; i++) {
+      if (b[i] < 32 && b[i] !== TAB && b[i] !== CR && b[i] !== LF && b[i] !== 12) {
+        throw new GeometryError('BINARY_GARBAGE', `${this.what} line ${this.line}: the file contains binary data where a number should be`, { line: this.line });
+      }
+    }
     const token = latin1(b, start, p);
     if (/^[+-]?(nan|inf|infinity)$/i.test(token)) code = 'NON_FINITE';
     const problem = code === 'NON_FINITE' ? 'is not a finite number' : 'is not a number';
