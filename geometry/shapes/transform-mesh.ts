@@ -48,18 +48,18 @@ export function transformMesh(mesh: TriMesh, transform: MeshTransform): TriMesh 
   if (t.length !== 3 || !t.every(Number.isFinite)) {
     throw new GeometryError('BAD_OPTION', 'translation must be three finite numbers');
   }
-  const M = [0, 1, 2].flatMap((r) => [0, 1, 2].map((col) => R[3 * r + col] * sv[col]));
+  const lin = [0, 1, 2].flatMap((r) => [0, 1, 2].map((col) => R[3 * r + col] * sv[col]));
   const det =
-    M[0] * (M[4] * M[8] - M[5] * M[7]) - M[1] * (M[3] * M[8] - M[5] * M[6]) + M[2] * (M[3] * M[7] - M[4] * M[6]);
+    lin[0] * (lin[4] * lin[8] - lin[5] * lin[7]) - lin[1] * (lin[3] * lin[8] - lin[5] * lin[6]) + lin[2] * (lin[3] * lin[7] - lin[4] * lin[6]);
   const P = mesh.positions;
   const out = new Float64Array(P.length);
   for (let i = 0; i < P.length; i += 3) {
     const x = P[i];
     const y = P[i + 1];
     const z = P[i + 2];
-    out[i] = M[0] * x + M[1] * y + M[2] * z + t[0];
-    out[i + 1] = M[3] * x + M[4] * y + M[5] * z + t[1];
-    out[i + 2] = M[6] * x + M[7] * y + M[8] * z + t[2];
+    out[i] = lin[0] * x + lin[1] * y + lin[2] * z + t[0];
+    out[i + 1] = lin[3] * x + lin[4] * y + lin[5] * z + t[1];
+    out[i + 2] = lin[6] * x + lin[7] * y + lin[8] * z + t[2];
   }
   const triangles = Uint32Array.from(mesh.triangles);
   if (det < 0) {

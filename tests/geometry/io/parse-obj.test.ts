@@ -146,7 +146,8 @@ describe('OBJ features (fixtures in tests/fixtures/meshes)', () => {
     // Every triangle keeps the polygon's orientation: normal along +(0, −0.8, 0.6) like the corner order.
     const P = m.mesh.positions;
     for (let f = 0; f < 4; f++) {
-      const [a, b, c] = [0, 1, 2].map((k) => 3 * m.mesh.triangles[3 * f + k]);
+      const tri = m.mesh.triangles;
+      const [a, b, c] = [0, 1, 2].map((k) => 3 * tri[3 * f + k]);
       const u = [P[b] - P[a], P[b + 1] - P[a + 1], P[b + 2] - P[a + 2]];
       const v = [P[c] - P[a], P[c + 1] - P[a + 1], P[c + 2] - P[a + 2]];
       const ny = u[2] * v[0] - u[0] * v[2];

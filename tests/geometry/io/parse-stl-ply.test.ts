@@ -12,9 +12,10 @@ import { rigidMotion } from '../shapes/motion-arbitrary';
 const enc = (s: string) => new TextEncoder().encode(s);
 
 /** Corner-by-corner positions of a mesh (what STL stores). */
-function corners(m: TriMesh): number[] {
+function corners(mesh: TriMesh): number[] {
   const out: number[] = [];
-  for (let c = 0; c < m.triangles.length; c++) for (let a = 0; a < 3; a++) out.push(m.positions[3 * m.triangles[c] + a]);
+  const { positions, triangles } = mesh;
+  for (let c = 0; c < triangles.length; c++) for (let a = 0; a < 3; a++) out.push(positions[3 * triangles[c] + a]);
   return out;
 }
 

@@ -21,10 +21,12 @@ const asModel = (mesh: TriMesh, extra: Partial<ImportedModel> = {}): ImportedMod
 });
 
 /** Every triangle with its own three corners, as an STL file stores it. */
-function unwelded(m: TriMesh): TriMesh {
-  const positions = new Float64Array(3 * m.triangles.length);
-  for (let c = 0; c < m.triangles.length; c++) positions.set(m.positions.subarray(3 * m.triangles[c], 3 * m.triangles[c] + 3), 3 * c);
-  return { positions, triangles: Uint32Array.from({ length: m.triangles.length }, (_, i) => i) };
+function unwelded(mesh: TriMesh): TriMesh {
+  const src = mesh.positions;
+  const tri = mesh.triangles;
+  const positions = new Float64Array(3 * tri.length);
+  for (let c = 0; c < tri.length; c++) positions.set(src.subarray(3 * tri[c], 3 * tri[c] + 3), 3 * c);
+  return { positions, triangles: Uint32Array.from({ length: tri.length }, (_, i) => i) };
 }
 
 function concat(...meshes: TriMesh[]): TriMesh {
