@@ -42,6 +42,11 @@ export function validationError(error: ZodError, where: 'body' | 'path' | 'query
   return new AppError('VALIDATION', 400, `Some ${where === 'body' ? 'fields' : `${where} values`} are not valid: ${names}`, fields);
 }
 
+/** Returns a 404 NOT_FOUND AppError saying that `what` (e.g. "Build") was not found. */
+export function notFound(what: string): AppError {
+  return new AppError('NOT_FOUND', 404, `${what} was not found`);
+}
+
 interface BodyParserError {
   type?: string;
   status?: number;

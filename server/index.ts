@@ -31,7 +31,7 @@ async function main(): Promise<void> {
     if (stopping) return;
     stopping = true;
     logger.info({ signal }, 'stopping');
-    const force = setTimeout(() => process.exit(1), 10_000).unref();
+    const force = setTimeout(() => process.exit(1), 10_000);
     server.close(() => {
       pool.end().finally(() => {
         clearTimeout(force);

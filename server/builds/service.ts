@@ -1,7 +1,8 @@
 /** Build rules: create, rename and delete are recorded in the shop's audit trail in the same transaction. */
 import type { Db } from '../../db/client';
 import { recordAudit } from '../audit/service';
-import { notFound, type SessionUser } from '../http/define-route';
+import { notFound } from '../errors';
+import type { SessionUser } from '../http/define-route';
 import { deleteBuild, insertBuild, selectBuild, selectBuilds, updateBuildName, type BuildRow } from './queries';
 
 export interface BuildView {

@@ -9,7 +9,7 @@ import type { Request, RequestHandler, Response, Router } from 'express';
 import type { z } from 'zod';
 import type { Role } from '../../db/validation';
 import { ROUTE_ACCESS, describeAccess, sameAccess, type AccessRule, type HttpMethod } from '../auth/access';
-import { AppError, validationError } from '../errors';
+import { validationError } from '../errors';
 
 /** The signed-in person as the handlers see them. */
 export interface SessionUser {
@@ -127,9 +127,4 @@ export function mountRoutes(router: Router, routes: readonly MountableRoute[], g
     throw new Error(`the access table lists routes nothing serves: ${unserved.map((e) => `${e.method} ${e.path}`).join(', ')}`);
   }
   for (const route of routes) route.mount(router, guard);
-}
-
-/** Returns a 404 NOT_FOUND AppError naming what was not found. */
-export function notFound(what: string): AppError {
-  return new AppError('NOT_FOUND', 404, `${what} was not found`);
 }

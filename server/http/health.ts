@@ -4,7 +4,7 @@ import { defineRoute, type MountableRoute } from './define-route';
 
 /** Returns whether `SELECT 1` succeeds within `timeoutMs`. */
 export async function databaseAnswers(pool: Pool, timeoutMs = 2_000): Promise<boolean> {
-  let timer: NodeJS.Timeout | undefined;
+  let timer: ReturnType<typeof setTimeout> | undefined;
   const timeout = new Promise<boolean>((resolve) => {
     timer = setTimeout(() => resolve(false), timeoutMs);
   });

@@ -3,8 +3,8 @@ import type { Db } from '../../db/client';
 import type { Role, ShopCreateBody } from '../../db/validation';
 import { recordAudit } from '../audit/service';
 import { insertMembership, insertShop } from '../auth/queries';
+import { notFound } from '../errors';
 import type { SessionUser, ShopAccess } from '../http/define-route';
-import { notFound } from '../http/define-route';
 import { selectShop, selectShopMembers } from './queries';
 
 /** Creates a shop owned by `user` (with an audit entry) and returns it with the caller's role. */
