@@ -8,7 +8,9 @@
 #
 # Steps, each skipped when already done: npm packages, PostgreSQL (Debian's packages, a private cluster on
 # 127.0.0.1:54329), migrations, demo data (only into an empty database), the web build (only when its sources
-# changed), then the processes. Settings: PORT (8470), DATABASE_URL, SESSION_SECRET, LOG_LEVEL.
+# changed), then the processes. Settings: PORT (8470), HOST (127.0.0.1), SESSION_SECRET, LOG_LEVEL, and
+# DATABASE_URL (when set, that database is used and no local cluster is started), SHEETSMITH_PGDATA and
+# SHEETSMITH_PGPORT (the local cluster's directory and port, see scripts/postgres.sh).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 source scripts/setup.sh
@@ -51,8 +53,13 @@ print_welcome() {
 }
 
 ensure_node_deps
-bash scripts/postgres.sh sheetsmith
-export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:54329/sheetsmith}"
+if [ -n "${DATABASE_URL:-}" ]; then
+  echo "start: using DATABASE_URL from the environment; not starting the local PostgreSQL cluster" >&2
+else
+  bash scripts/postgres.sh sheetsmith
+  DATABASE_URL="postgres://postgres@127.0.0.1:${SHEETSMITH_PGPORT:-54329}/sheetsmith"
+fi
+export DATABASE_URL
 db_report=$(node --import tsx db/seed.ts --migrate --print-sign-ins)
 sed '/^Demo sign-ins/,$d' <<<"$db_report"
 ensure_session_secret
