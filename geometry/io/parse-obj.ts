@@ -39,7 +39,9 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
   const triangles = new GrowableUint32(Math.max(1024, bytes.length / 8));
   const cornerUv = new GrowableInt32(16);
   let anyUv = false;
-  const faceTags = new GrowableUint32(Math.max(1024, bytes.length / 24));
+  // Face tags are kept as runs (first triangle, tag) and expanded at the end: tags change rarely.
+  const tagRunStart: number[] = [];
+  const tagRunTag: number[] = [];
   const tagNames: string[] = [''];
   const tagIndex = new Map<string, number>([['', 0]]);
   let currentTag = 0;
@@ -55,7 +57,6 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
       throw new GeometryError('TOO_MANY_TRIANGLES', `OBJ line ${s.line}: more than ${maxTriangles} triangles; reduce the model first`, { line: s.line });
     }
     triangles.push3(a, c2, c3);
-    faceTags.push(currentTag);
     if (anyUv) {
       cornerUv.push(ta);
       cornerUv.push(tb);
@@ -157,7 +158,6 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
       }
       if (n === 3 && !anyUv && triangles.length < 3 * maxTriangles) {
         triangles.push3(polyV[0], polyV[1], polyV[2]);
-        faceTags.push(currentTag);
       } else if (n === 3) {
         pushTriangle(polyV[0], polyV[1], polyV[2], polyT[0], polyT[1], polyT[2]);
       } else {
@@ -209,6 +209,10 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
         tagNames.push(name);
         tagIndex.set(name, idx);
       }
+      if (idx !== currentTag) {
+        tagRunStart.push(triangles.length / 3);
+        tagRunTag.push(idx);
+      }
       currentTag = idx;
       s.skipLine();
       continue;
@@ -253,9 +257,9 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
   const notes: string[] = [];
   if (polygonsTriangulated > 0) notes.push(`${polygonsTriangulated} polygons with more than 3 corners were triangulated`);
   if (degeneratePolygons > 0) notes.push(`${degeneratePolygons} polygons were degenerate or self-crossing and were split as a fan`);
+  const F = triangles.length / 3;
   let cornerUVs: Float64Array | null = null;
   if (anyUv) {
-    const F = triangles.length / 3;
     cornerUVs = new Float64Array(6 * F);
     const idx = cornerUv.data;
     const uvData = uvs.data;
@@ -271,9 +275,13 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
     }
     if (missing > 0) notes.push(`${missing} face corners had no texture coordinate; they were set to (0, 0)`);
   }
+  const faceTags = new Uint32Array(F);
+  for (let r = 0; r < tagRunStart.length; r++) {
+    faceTags.fill(tagRunTag[r], tagRunStart[r], r + 1 < tagRunStart.length ? tagRunStart[r + 1] : F);
+  }
   return {
     mesh: { positions: positions.toArray(), triangles: triangles.toArray() },
-    faceTags: faceTags.toArray(),
+    faceTags,
     tagNames,
     seamPolylines,
     cornerUVs,
