@@ -198,3 +198,32 @@ describe('simplifyMesh (meshoptimizer quadric simplifier)', () => {
     await expect(simplifyMesh(asModel(m), 10, new Uint8Array(5))).rejects.toMatchObject({ code: 'BAD_OPTION' });
   });
 });
+
+describe('cleanMesh on a real scan (the Stanford bunny, public domain, npm package "bunny")', () => {
+  it('gives a manifold, consistently wound mesh on which discrete Gauss–Bonnet holds: Σ defect = 2πχ (Crane 2013)', async () => {
+    const { createRequire } = await import('node:module');
+    const bunny = createRequire(import.meta.url)('bunny') as { positions: number[][]; cells: number[][] };
+    const mesh: TriMesh = { positions: Float64Array.from(bunny.positions.flat()), triangles: Uint32Array.from(bunny.cells.flat()) };
+    const { angleDefects } = await import('../../../geometry/mesh/angle-defect');
+    const check = (m: TriMesh) => {
+      const { model, report } = cleanMesh(asModel(m));
+      const V = model.mesh.positions.length / 3;
+      const twin = buildTwins(model.mesh.triangles, V);
+      const chi = eulerCharacteristic(model.mesh.triangles, twin);
+      const total = angleDefects(model.mesh.positions, model.mesh.triangles, twin).reduce((s, x) => s + x, 0);
+      expect(total).toBeCloseTo(2 * Math.PI * chi, 6);
+      expect(report.nonOrientableFaces).toBe(0);
+      return report;
+    };
+    const base = check(mesh);
+    expect(base.facesOut).toBeGreaterThan(3600);
+    fc.assert(
+      fc.property(rigidMotion, scaleFactor, (motion, k) => {
+        const r = check(transformMesh(mesh, { ...motion, scale: k }));
+        expect(r.facesOut).toBe(base.facesOut);
+        expect(r.boundaryLoops).toBe(base.boundaryLoops);
+      }),
+      { numRuns: 5 },
+    );
+  });
+});
