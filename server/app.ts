@@ -78,7 +78,17 @@ export function createApp(deps: AppDeps): Express {
   const cookieSecure = (req: Request) => (deps.env.COOKIE_SECURE === 'auto' ? req.secure : deps.env.COOKIE_SECURE === 'true');
 
   app.use(helmet({ contentSecurityPolicy: { useDefaults: true, directives: CSP_DIRECTIVES } }));
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // One short line per request: who asked for what and the answer; headers (cookies!) stay out.
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string; remoteAddress?: string }) => ({ id: req.id, method: req.method, url: req.url, remoteAddress: req.remoteAddress }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
+    }),
+  );
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 

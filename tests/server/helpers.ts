@@ -53,7 +53,7 @@ export async function makeTestApp(overrides: Partial<Omit<AppDeps, 'pool' | 'db'
     pool,
     db,
     sessionSecret: secret,
-    logger: createLogger('silent', 'test'),
+    logger: overrides.logger ?? createLogger('silent', 'test'),
     signInLimit: overrides.signInLimit ?? { max: 3, windowMs: 60_000 },
   });
   return { app, pool, db, secret, key: sessionKey(secret), close: () => pool.end() };
