@@ -24,15 +24,27 @@ function startsWith(bytes: Uint8Array, text: string): boolean {
   return true;
 }
 
+/** True when the text starts with "solid" and says "facet" within its first kilobyte (an ASCII STL). */
+function looksLikeAsciiStl(bytes: Uint8Array): boolean {
+  let p = 0;
+  while (p < bytes.length && p < 4096 && (bytes[p] === 32 || bytes[p] === 9 || bytes[p] === 10 || bytes[p] === 13)) p++;
+  if (!startsWith(bytes.subarray(p), 'solid')) return false;
+  const head = bytes.subarray(p, p + 1024);
+  for (let i = 0; i + 5 <= head.length; i++) if (startsWith(head.subarray(i), 'facet')) return true;
+  return false;
+}
+
 /**
- * Returns the format of a model file: a PLY magic line or an exactly-sized binary STL wins over the
- * extension (a mislabelled file still reads); otherwise the extension (.obj, .stl, .ply, any case); with no
- * known extension, content that starts with "solid" is STL and other text is tried as OBJ. Returns null when
- * nothing fits.
+ * Returns the format of a model file. Content that identifies itself wins over the extension, so a
+ * mislabelled file still reads: a PLY magic line, an exactly-sized binary STL, or text starting "solid" with
+ * "facet" in its first kilobyte. Otherwise the extension decides (.obj, .stl, .ply, any case); with no known
+ * extension, text starting "solid" is STL and other text that starts like an OBJ statement is OBJ.
+ * Returns null when nothing fits.
  */
 export function detectModelFormat(bytes: Uint8Array, fileName: string): ModelFormat | null {
   if (startsWith(bytes, 'ply\n') || startsWith(bytes, 'ply\r\n')) return 'ply';
   if (looksLikeBinaryStl(bytes)) return 'stl';
+  if (looksLikeAsciiStl(bytes)) return 'stl';
   const ext = /\.([a-z0-9]+)$/i.exec(fileName)?.[1]?.toLowerCase();
   if (ext === 'obj' || ext === 'stl' || ext === 'ply') return ext;
   let p = 0;

@@ -55,19 +55,12 @@ export class TextScanner {
     return this.pos >= this.end || c === LF || (this.hashComments && c === HASH);
   }
 
-  /** Moves past the end of the current line (ignoring continuations: used for comments and unknown keywords). */
+  /** Moves past the end of the current line, continuation backslashes included (comments, unknown keywords). */
   skipLine(): void {
     const b = this.bytes;
     let p = this.pos;
     const end = this.end;
-    while (p < end && b[p] !== LF) {
-      if (b[p] === BACKSLASH && (b[p + 1] === LF || (b[p + 1] === CR && b[p + 2] === LF)) && !this.hashComments) {
-        p += b[p + 1] === LF ? 2 : 3;
-        this.line++;
-        continue;
-      }
-      p++;
-    }
+    while (p < end && b[p] !== LF) p++;
     if (p < end) {
       p++;
       this.line++;

@@ -104,6 +104,7 @@ describe('importModel', () => {
     expect(detectModelFormat(enc(writeObj(mesh)), 'part.OBJ')).toBe('obj');
     expect(detectModelFormat(enc(writeObj(mesh)), 'noext')).toBe('obj');
     expect(detectModelFormat(enc(writeAsciiStl(mesh)), 'noext')).toBe('stl');
+    expect(detectModelFormat(enc(writeAsciiStl(mesh)), 'mislabelled.obj')).toBe('stl');
     expect(detectModelFormat(enc('\u00ff\u00fe garbage'), 'noext')).toBeNull();
     expect(importModel(writeBinaryStl(mesh), 'part.obj').mesh.triangles.length).toBe(mesh.triangles.length);
   });
