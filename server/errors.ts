@@ -49,12 +49,16 @@ export function notFound(what: string): AppError {
 
 interface BodyParserError {
   type?: string;
-  status?: number;
+  message?: string;
 }
 
 function fromBodyParser(err: unknown): AppError | null {
   const type = (err as BodyParserError | null)?.type;
-  if (type === 'entity.parse.failed') return new AppError('BAD_JSON', 400, 'The request body is not valid JSON');
+  if (type === 'entity.parse.failed') {
+    // JSON.parse's own message says where it stopped, e.g. "... in JSON at position 13".
+    const where = (err as BodyParserError).message ?? '';
+    return new AppError('BAD_JSON', 400, `The request body is not valid JSON${where ? `: ${where}` : ''}`);
+  }
   if (type === 'entity.too.large') return new AppError('TOO_LARGE', 413, 'The request body is too large');
   if (type === 'encoding.unsupported' || type === 'charset.unsupported') {
     return new AppError('BAD_ENCODING', 415, 'The request body encoding is not supported; send UTF-8 JSON');
