@@ -1,6 +1,6 @@
 import type { SparseSymmetricMatrix } from './sparse-symmetric-matrix';
 
-/** Subgraphs this small are not split further; their order inside costs at most LEAF² / 2 fill. */
+/** Subgraphs this small are not split further but ordered by minimum degree. */
 const LEAF_SIZE = 12;
 
 /**
@@ -52,27 +52,89 @@ export function nestedDissectionOrdering(a: SparseSymmetricMatrix): Int32Array {
     return tail;
   };
 
+  // Minimum degree inside a small part (Tinney & Walker 1967; George & Liu 1989, "The evolution of the
+  // minimum degree ordering algorithm", SIAM Review 31), on a dense copy of its graph: repeatedly take the
+  // vertex with fewest neighbours — inside the part, plus its count of neighbours outside, which are all
+  // numbered later — and join its remaining neighbours into a clique, as elimination does.
+  const leafAdj = new Uint8Array(16 * LEAF_SIZE * LEAF_SIZE);
+  const leafExt = new Int32Array(4 * LEAF_SIZE);
+  const leafAlive = new Uint8Array(4 * LEAF_SIZE);
+  const leafOut = new Int32Array(4 * LEAF_SIZE);
+  const orderLeaf = (lo: number, hi: number): void => {
+    const s = hi - lo;
+    const id = (stampId += 2);
+    for (let q = lo; q < hi; q++) {
+      stamp[order[q]] = id;
+      level[order[q]] = q - lo;
+    }
+    leafAdj.fill(0, 0, s * s);
+    for (let i = 0; i < s; i++) {
+      const v = order[lo + i];
+      let ext = 0;
+      for (let p = colPtr[v]; p < colPtr[v + 1]; p++) {
+        const w = rowIdx[p];
+        if (w === v) continue;
+        if (stamp[w] === id) leafAdj[i * s + level[w]] = 1;
+        else ext++;
+      }
+      leafExt[i] = ext;
+      leafAlive[i] = 1;
+    }
+    for (let step = 0; step < s; step++) {
+      let pick = -1;
+      let pickDeg = Infinity;
+      for (let i = 0; i < s; i++) {
+        if (!leafAlive[i]) continue;
+        let d = leafExt[i];
+        for (let j = 0; j < s; j++) if (leafAlive[j] && leafAdj[i * s + j]) d++;
+        if (d < pickDeg) {
+          pickDeg = d;
+          pick = i;
+        }
+      }
+      leafAlive[pick] = 0;
+      leafOut[step] = order[lo + pick];
+      for (let i = 0; i < s; i++) {
+        if (!leafAlive[i] || !leafAdj[pick * s + i]) continue;
+        leafExt[i] = Math.max(leafExt[i], leafExt[pick]);
+        for (let j = 0; j < s; j++) {
+          if (j !== i && leafAlive[j] && leafAdj[pick * s + j]) leafAdj[i * s + j] = 1;
+        }
+      }
+    }
+    order.set(leafOut.subarray(0, s), lo);
+  };
+
   while (stackLo.length > 0) {
     const lo = stackLo.pop() as number;
     const hi = stackHi.pop() as number;
     const size = hi - lo;
-    if (size <= LEAF_SIZE) continue;
+    if (size <= LEAF_SIZE) {
+      orderLeaf(lo, hi);
+      continue;
+    }
     const id = (stampId += 2);
     for (let q = lo; q < hi; q++) stamp[order[q]] = id;
 
-    // A disconnected segment is split into its components, which need no separator.
+    // A disconnected segment is split into all its components in one pass (one at a time would cost
+    // a search of the whole segment per component).
     const reached = bfs(order[lo], id, id + 1);
     if (reached < size) {
-      let a0 = lo;
-      let b0 = hi;
+      let w = lo;
+      scratch.set(queue.subarray(0, reached), w);
+      stackLo.push(w);
+      stackHi.push(w + reached);
+      w += reached;
       for (let q = lo; q < hi; q++) {
         const v = order[q];
-        if (stamp[v] === id + 1) scratch[a0++] = v;
-        else scratch[--b0] = v;
+        if (stamp[v] !== id) continue;
+        const got = bfs(v, id, id + 1);
+        scratch.set(queue.subarray(0, got), w);
+        stackLo.push(w);
+        stackHi.push(w + got);
+        w += got;
       }
       order.set(scratch.subarray(lo, hi), lo);
-      stackLo.push(lo, a0);
-      stackHi.push(a0, hi);
       continue;
     }
 
@@ -102,7 +164,11 @@ export function nestedDissectionOrdering(a: SparseSymmetricMatrix): Int32Array {
       root = best;
       depth = d;
     }
-    if (depth < 2) continue; // too dense to split by levels: leave as one block
+    if (depth < 2) {
+      // Too dense to split by levels (every vertex within two steps of the root).
+      if (size <= 4 * LEAF_SIZE) orderLeaf(lo, hi);
+      continue;
+    }
 
     // Level sizes, then the smallest level whose start lies in the middle 40 % of the vertices.
     const levelSize = new Int32Array(depth + 1);
@@ -110,21 +176,26 @@ export function nestedDissectionOrdering(a: SparseSymmetricMatrix): Int32Array {
     let cut = -1;
     let before = 0;
     let bestSize = Infinity;
+    let bestOffCentre = Infinity;
     for (let l = 1; l < depth; l++) {
       before += levelSize[l - 1];
       const start = before / size;
       if (start > 0.7) break;
-      if (start >= 0.3 && levelSize[l] < bestSize) {
+      const offCentre = Math.abs((before + levelSize[l] / 2) / size - 0.5);
+      if (start >= 0.3 && (levelSize[l] < bestSize || (levelSize[l] === bestSize && offCentre < bestOffCentre))) {
         bestSize = levelSize[l];
+        bestOffCentre = offCentre;
         cut = l;
       }
     }
     if (cut < 0) {
+      // No level starts in the middle band (few, uneven levels): take the one holding the median vertex.
+      cut = depth - 1;
       before = 0;
-      for (let l = 0; l < depth; l++) {
-        before += levelSize[l];
-        if (before * 2 >= size) {
-          cut = Math.max(1, Math.min(depth - 1, l));
+      for (let l = 1; l < depth; l++) {
+        before += levelSize[l - 1];
+        if (2 * (before + levelSize[l]) >= size) {
+          cut = l;
           break;
         }
       }
