@@ -17,7 +17,8 @@ export interface OrientResult {
  * Breadth-first search from the lowest face of each component over edges used by exactly two faces: a
  * neighbour that runs the shared edge the same way is reversed. A component where the search meets a
  * contradiction is non-orientable; its faces keep the first assignment reached. Each component without
- * boundary is then reversed as a whole when its signed volume (divergence theorem) is negative.
+ * boundary is then reversed as a whole when its signed volume (divergence theorem) is negative; an open
+ * component is reversed as a whole when that keeps more of its faces as they were (majority vote).
  * `positions` Float64Array(3V) mm, `triangles` Uint32Array(3F). Deterministic.
  */
 export function orientFaces(positions: Float64Array, triangles: Uint32Array): OrientResult {
@@ -78,12 +79,22 @@ export function orientFaces(positions: Float64Array, triangles: Uint32Array): Or
       - positions[a + 1] * (positions[b] * positions[d + 2] - positions[b + 2] * positions[d])
       + positions[a + 2] * (positions[b] * positions[d + 1] - positions[b + 1] * positions[d]);
   }
+  const size = new Uint32Array(components);
+  const flippedIn = new Uint32Array(components);
+  for (let f = 0; f < F; f++) {
+    size[component[f]]++;
+    flippedIn[component[f]] += flip[f];
+  }
   let shellsTurnedOutward = 0;
   const turn = new Uint8Array(components);
   for (let c = 0; c < components; c++) {
-    if (!open[c] && !conflictComponents.has(c) && volume[c] < 0) {
+    if (conflictComponents.has(c)) continue;
+    if (!open[c] && volume[c] < 0) {
       turn[c] = 1;
       shellsTurnedOutward++;
+    } else if (open[c] && 2 * flippedIn[c] > size[c]) {
+      // An open sheet has no inside; keep the side most of its faces already had.
+      turn[c] = 1;
     }
   }
   let nonOrientableFaces = 0;

@@ -5,7 +5,7 @@ import { simplifyMesh } from '../../../geometry/mesh/simplify-mesh';
 import { buildTwins } from '../../../geometry/mesh/half-edges';
 import { eulerCharacteristic } from '../../../geometry/mesh/euler-characteristic';
 import { signedVolume, surfaceArea } from '../../../geometry/mesh/mesh-measures';
-import { cone, icoSphere, platonicSolid, transformMesh, uvSphere } from '../../../geometry/shapes';
+import { cone, helmetShell, icoSphere, platonicSolid, transformMesh, uvSphere } from '../../../geometry/shapes';
 import { GeometryError } from '../../../geometry/errors';
 import type { ImportedModel, TriMesh } from '../../../geometry/mesh/tri-mesh';
 import { rigidMotion, scaleFactor } from '../shapes/motion-arbitrary';
@@ -97,6 +97,27 @@ describe('cleanMesh', () => {
         const { model } = cleanMesh(asModel({ positions: base.positions, triangles: tris }));
         expect(allPaired(model.mesh)).toBe(true);
         expect(signedVolume(model.mesh)).toBeCloseTo(signedVolume(base), 6);
+      }),
+      { numRuns: 30 },
+    );
+  });
+  it('on an open sheet (the helmet) keeps the side most faces had, however a minority was flipped', () => {
+    const base = helmetShell({ segments: 24, rings: 6 });
+    const F = base.triangles.length / 3;
+    fc.assert(
+      fc.property(fc.uint8Array({ minLength: F, maxLength: F, min: 60 }), (coin) => {
+        const tris = Uint32Array.from(base.triangles);
+        let flipped = 0;
+        for (let f = 0; f < F; f++) {
+          if (coin[f] < 100) {
+            [tris[3 * f + 1], tris[3 * f + 2]] = [tris[3 * f + 2], tris[3 * f + 1]];
+            flipped++;
+          }
+        }
+        fc.pre(2 * flipped < F);
+        const { model, report } = cleanMesh(asModel({ positions: base.positions, triangles: tris }));
+        expect(Array.from(model.mesh.triangles)).toEqual(Array.from(base.triangles));
+        expect(report.flippedFaces).toBe(flipped);
       }),
       { numRuns: 30 },
     );
