@@ -66,3 +66,19 @@ describe.each(pieces)('flattenPiece on $name under rigid motion and scale (fast-
     );
   });
 });
+
+describe('flattenPiece at extreme scales', () => {
+  it.each([1e-6, 1e6])('a gore scaled by %s keeps its stretch and scales its pattern (no relative threshold breaks)', (k) => {
+    // Same intrinsic argument as above; every tolerance inside the engine is relative to the piece size.
+    const mesh = sphereGore(60, 6, 12, 4);
+    const base = flattenPiece(mesh);
+    const flat = flattenPiece(transformMesh(mesh, { scale: k, translation: [3 * k, -2 * k, 5 * k] }));
+    expect(flat.flipped).toBe(0);
+    expect(Math.abs(flat.stretch.maxPct - base.stretch.maxPct)).toBeLessThan(1e-4);
+    expect(Math.abs(flat.area3d / (k * k * base.area3d) - 1)).toBeLessThan(1e-9);
+    const a = edgeLengths(base.uv, mesh.triangles);
+    const b = edgeLengths(flat.uv, mesh.triangles);
+    for (let i = 0; i < a.length; i++) expect(Math.abs(b[i] / (k * a[i]) - 1)).toBeLessThan(1e-5);
+  });
+});
+
