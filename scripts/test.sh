@@ -47,6 +47,9 @@ if [ -s "$report" ]; then
     console.log(r.numPassedTests + ' passed, ' + r.numFailedTests + ' failed');
     process.exit(r.numFailedTests > 0 || !r.success ? 1 : 0);
   " || status=1
+  if [ "$status" -ne 0 ]; then
+    echo "test: vitest exited with status $status (a failed test, a suite that did not load, or an error outside a test; see above)"
+  fi
 else
   echo "0 passed, 0 failed (vitest wrote no report; exit status $status)"
   [ "$status" -ne 0 ] || status=1

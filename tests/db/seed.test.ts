@@ -22,7 +22,17 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await pool?.end();
-  await admin.query(`DROP DATABASE IF EXISTS ${dbName} WITH (FORCE)`);
+  // A just-closed connection can take a moment to leave the server; a forced drop would kill it mid-exit and
+  // surface as an error in this process, so wait for it instead.
+  for (let attempt = 0; ; attempt++) {
+    try {
+      await admin.query(`DROP DATABASE IF EXISTS ${dbName}`);
+      break;
+    } catch (err) {
+      if ((err as { code?: string }).code !== '55006' || attempt >= 40) throw err;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+  }
   await admin.end();
 });
 
