@@ -69,12 +69,23 @@ const CSP_DIRECTIVES = {
   upgradeInsecureRequests: null,
 };
 
+/**
+ * Returns Express's "trust proxy" value for TRUST_PROXY: "true"/"false", a hop count, or addresses and
+ * named ranges such as "loopback" (the default: a reverse proxy on the same machine).
+ */
+export function trustProxySetting(value: string): boolean | number | string {
+  if (value === 'true') return true;
+  if (value === 'false') return false;
+  if (/^\d+$/.test(value)) return Number(value);
+  return value;
+}
+
 /** Returns the configured Express app; it holds no state besides what `deps` hold. */
 export function createApp(deps: AppDeps): Express {
   const logger = deps.logger ?? createLogger(deps.env.LOG_LEVEL, 'api');
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', deps.env.TRUST_PROXY === 'false' ? false : deps.env.TRUST_PROXY);
+  app.set('trust proxy', trustProxySetting(deps.env.TRUST_PROXY));
   const cookieSecure = (req: Request) => (deps.env.COOKIE_SECURE === 'auto' ? req.secure : deps.env.COOKIE_SECURE === 'true');
 
   app.use(helmet({ contentSecurityPolicy: { useDefaults: true, directives: CSP_DIRECTIVES } }));

@@ -4,6 +4,7 @@
  * types their password right is never locked out by their own earlier successes (OWASP Authentication Cheat
  * Sheet, "Protect against automated attacks").
  */
+import { createHash } from 'node:crypto';
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { Db } from '../../db/client';
@@ -16,9 +17,11 @@ export interface SignInLimitOptions {
   windowMs: number;
 }
 
-function emailOf(req: Request): string {
+/** The e-mail part of the key, hashed so that any body (even a megabyte-long "email") gives a short key. */
+function emailKey(req: Request): string {
   const raw: unknown = (req.body as { email?: unknown } | undefined)?.email;
-  return typeof raw === 'string' ? raw.trim().toLowerCase() : '';
+  const email = typeof raw === 'string' ? raw.trim().toLowerCase() : '';
+  return createHash('sha256').update(email).digest('base64url');
 }
 
 /** Returns the middleware; over the limit it answers 429 RATE_LIMITED in the API's error shape. */
@@ -30,7 +33,7 @@ export function signInLimiter(db: Db, options: SignInLimitOptions): RequestHandl
     legacyHeaders: false,
     skipSuccessfulRequests: true,
     store: new PostgresRateLimitStore(db, 'signin:'),
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? 'unknown')}|${emailOf(req)}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? 'unknown')}|${emailKey(req)}`,
     handler: (_req, _res, next, used) => {
       const minutes = Math.ceil(used.windowMs / 60_000);
       next(new AppError('RATE_LIMITED', 429, `Too many failed sign-ins; wait up to ${minutes} minutes and try again`));

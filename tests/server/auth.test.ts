@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { SignJWT } from 'jose';
 import request from 'supertest';
@@ -239,6 +240,13 @@ describe('sign-in rate limit', () => {
     const otherAddress = await insertPerson(ctx.db, 'not-limited');
     const fine = await request(ctx.app).post('/api/auth/signin').send({ email: otherAddress.email, password: FIXTURE_PASSWORD });
     expect(fine.status).toBe(200);
+  });
+
+  it('answers an absurdly long e-mail with 400 VALIDATION, not a server error from the limiter key', async () => {
+    // Random hex does not compress, so as a raw key it would exceed PostgreSQL's B-tree entry limit (about 2.7 kB).
+    const res = await request(ctx.app).post('/api/auth/signin').send({ email: `${randomBytes(8_000).toString('hex')}@test.example.com`, password: 'whatever-pass' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.email).toBeDefined();
   });
 
   it('does not count successful sign-ins', async () => {

@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadOrCreateSessionSecret } from '../../server/auth/session-secret';
+import { trustProxySetting } from '../../server/app';
 import { parseEnv } from '../../server/env';
 
 describe('parseEnv', () => {
@@ -63,5 +64,15 @@ describe('loadOrCreateSessionSecret', () => {
     } finally {
       fs.rmSync(dir, { recursive: true, force: true });
     }
+  });
+});
+
+describe('trustProxySetting', () => {
+  it('maps TRUST_PROXY to the value types the Express 5 "trust proxy" setting documents (boolean, hop count, address list)', () => {
+    expect(trustProxySetting('true')).toBe(true);
+    expect(trustProxySetting('false')).toBe(false);
+    expect(trustProxySetting('2')).toBe(2);
+    expect(trustProxySetting('loopback')).toBe('loopback');
+    expect(trustProxySetting('10.0.0.0/8, loopback')).toBe('10.0.0.0/8, loopback');
   });
 });
