@@ -72,6 +72,10 @@ export interface MountableRoute {
 export function defineRoute<const A extends AccessRule, B = undefined, P = Record<string, never>>(
   def: RouteDefinition<A, B, P>,
 ): MountableRoute {
+  if (typeof def.access === 'object' && !def.params) {
+    // Without a schema an id like "abc" would reach the database and fail there as a server error.
+    throw new Error(`route ${def.method} ${def.path} checks a shop role, so it must declare a params schema with shopId`);
+  }
   const verb = def.method.toLowerCase() as 'get' | 'post' | 'patch' | 'put' | 'delete';
   return {
     method: def.method,

@@ -9,7 +9,8 @@
 import express from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ROUTE_ACCESS, type AccessRule, type HttpMethod } from '../../server/auth/access';
+import { ROUTE_ACCESS, type AccessRule, type HttpMethod, type RouteAccess } from '../../server/auth/access';
+import { buildParams, shopParams } from '../../server/http/params';
 import { defineRoute, mountRoutes, type AccessGuard } from '../../server/http/define-route';
 import { insertBuild, makeShopFixture, makeTestApp, PERSONAS, uniqueEmail, FIXTURE_PASSWORD, type Persona, type ShopFixture, type TestContext } from './helpers';
 
@@ -29,6 +30,10 @@ function expected(rule: AccessRule, method: HttpMethod, persona: Persona): Outco
   const outcome = table[key][persona];
   if (persona === 'admin' && typeof rule === 'object' && method !== 'GET') return '403';
   return outcome;
+}
+
+function buildOrShopParams(path: string) {
+  return path.includes(':buildId') ? buildParams : shopParams;
 }
 
 let ctx: TestContext;
@@ -80,27 +85,33 @@ describe('every route × every persona', () => {
 describe('the access table and the mounted routes', () => {
   const guard: AccessGuard = async () => ({ user: null });
   const handler = async () => ({ status: 204 });
+  const routeFor = (e: RouteAccess, access: AccessRule = e.access) =>
+    defineRoute({ method: e.method, path: e.path, access, params: typeof access === 'object' ? buildOrShopParams(e.path) : undefined, handler });
 
   it('refuses to mount a route missing from the table', () => {
-    const routes = ROUTE_ACCESS.map((e) => defineRoute({ method: e.method, path: e.path, access: e.access, handler }));
+    const routes = ROUTE_ACCESS.map((e) => routeFor(e));
     routes.push(defineRoute({ method: 'GET', path: '/api/secret-report', access: 'signedIn', handler }));
     expect(() => mountRoutes(express.Router(), routes, guard)).toThrow(/GET \/api\/secret-report has no entry in the access table/);
   });
 
   it('refuses to mount a route whose rule differs from the table', () => {
-    const routes = ROUTE_ACCESS.map((e) =>
-      defineRoute({ method: e.method, path: e.path, access: e.path === '/api/admin/users' ? 'signedIn' : e.access, handler }),
-    );
+    const routes = ROUTE_ACCESS.map((e) => routeFor(e, e.path === '/api/admin/users' ? 'signedIn' : e.access));
     expect(() => mountRoutes(express.Router(), routes, guard)).toThrow(/declares access "signedIn" but the access table says "admin"/);
   });
 
   it('refuses to start when a table entry has no route', () => {
-    const routes = ROUTE_ACCESS.slice(1).map((e) => defineRoute({ method: e.method, path: e.path, access: e.access, handler }));
+    const routes = ROUTE_ACCESS.slice(1).map((e) => routeFor(e));
     expect(() => mountRoutes(express.Router(), routes, guard)).toThrow(/nothing serves: GET \/api\/health/);
   });
 
+  it('refuses a shop route that does not validate its path ids', () => {
+    expect(() => defineRoute({ method: 'GET', path: '/api/shops/:shopId/things', access: { shopRole: 'viewer' }, handler })).toThrow(
+      /must declare a params schema with shopId/,
+    );
+  });
+
   it('refuses a route declared twice', () => {
-    const routes = ROUTE_ACCESS.map((e) => defineRoute({ method: e.method, path: e.path, access: e.access, handler }));
+    const routes = ROUTE_ACCESS.map((e) => routeFor(e));
     routes.push(routes[0]);
     expect(() => mountRoutes(express.Router(), routes, guard)).toThrow(/declared twice/);
   });
