@@ -136,8 +136,14 @@ describe('sign-in and sign-out', () => {
       return performance.now() - t0;
     };
     await time(uniqueEmail('warm'));
-    const known = Math.min(await time(person.email), await time(person.email));
-    const unknown = Math.min(await time(uniqueEmail('ghost')), await time(uniqueEmail('ghost')));
+    // The fastest of several tries filters out pauses from other work on a shared machine.
+    const fastest = async (emailFor: () => string) => {
+      let best = Infinity;
+      for (let i = 0; i < 4; i++) best = Math.min(best, await time(emailFor()));
+      return best;
+    };
+    const known = await fastest(() => person.email);
+    const unknown = await fastest(() => uniqueEmail('ghost'));
     // Without the decoy hash an unknown address answers in ~1 ms against ~20+ ms for an argon2 check.
     expect(unknown).toBeGreaterThan(known * 0.4);
   });
