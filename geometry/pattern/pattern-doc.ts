@@ -55,8 +55,16 @@ export interface PatternPiece {
   holes: PointMm[][];
   stretch: StretchSummary;
   quantity: number;
+  /** True when some of the `quantity` copies are mirror images (see `mirroredCopies`). */
   mirrored: boolean;
+  /** How many of the `quantity` copies are cut mirrored (turn the template over), when `mirrored`. */
+  mirroredCopies?: number;
   thickness: number;
+  /**
+   * Perimeter of this piece on the chosen `surface` minus its perimeter on the outer skin, mm (negative:
+   * the pattern is shorter than the outer skin). 0 for surface 'outer'.
+   */
+  perimeterChangeMm?: number;
   surface?: PatternSurface;
   seamEdges?: PieceSeamEdge[];
   scoreLines?: ScoreLine[];
@@ -84,6 +92,8 @@ export interface PatternSeam {
   /** (180 − dihedral)/2 from square, per side of a symmetric joint. */
   bevel: { min: number; mean: number; max: number };
   convex: boolean;
+  /** Which face each edge's bevel removes material from: 'inner' at an outside corner, 'outer' at an inside one. */
+  bevelFace?: 'outer' | 'inner' | 'none';
   stations: SeamStation[];
 }
 
@@ -93,4 +103,6 @@ export interface PatternDoc {
   pieces: PatternPiece[];
   seams: PatternSeam[];
   warnings: string[];
+  /** Shop-safety cautions for the steps this pattern calls for (bevel and score cuts, gluing). */
+  cautions?: string[];
 }

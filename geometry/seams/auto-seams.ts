@@ -1,0 +1,288 @@
+/**
+ * Automatic seams from a stretch budget: split the sculpt into as few pieces as it takes for every piece to
+ * lie flat in foam within the budget.
+ *
+ * The method follows the idea of D-Charts (Julius et al. 2005): grow charts from seeds over the face graph,
+ * attracted to faces whose normals agree with the seed (a planar-proxy term, as in variational shape
+ * approximation, Cohen-Steiner et al. 2004) and held back by sharp edges (so seams settle on creases, where
+ * they are least visible), then verify each chart by really flattening it (LSCM then ARAP) and measuring its
+ * stretch. Sheetsmith's own schedule: every connected part starts as one chart; a chart over budget (or one
+ * that cannot be flattened, such as a closed shell) is split in two by growing from its two geodesically
+ * farthest faces; this repeats until every chart fits. Then neighbouring charts are merged back wherever the
+ * merged chart still fits, longest shared seam first, which removes the needless cuts bisection leaves.
+ */
+import { flattenPiece } from '../flatten/flatten-piece';
+import { GeometryError, isGeometryError } from '../errors';
+import type { TriMesh } from '../mesh/tri-mesh';
+import { MinHeap } from '../pattern/min-heap';
+
+export interface AutoSeamOptions {
+  /** Max stretch allowed per piece, percent (default 3). */
+  stretchBudgetPct?: number;
+  /** Stop splitting once this many pieces exist (the pieces left over budget are then reported by the caller). */
+  maxPieces?: number;
+  /** ARAP iterations for each trial flattening (default: flattenPiece's own). */
+  arapIterations?: number;
+}
+
+/** How strongly a sharp edge resists being crossed by a growing chart (dimensionless, tuned on the test shapes). */
+const CREASE_WEIGHT = 12;
+/** How strongly a face whose normal departs from the seed's normal resists joining the seed's chart. */
+const PROXY_WEIGHT = 2;
+
+/**
+ * Seams that cut the mesh into pieces within the stretch budget.
+ *
+ * @param mesh TriMesh in mm, consistently oriented.
+ * @param twin Int32Array(3F) half-edge twins, −1 on a boundary (non-manifold edges unpaired).
+ * @param options stretch budget (percent, > 0) and optional piece cap.
+ * @returns SeamMask: Uint8Array(3F), both half-edges of every seam edge set. Every piece the mask cuts out is
+ *   connected and, unless `maxPieces` stopped the splitting, flattens within the budget with flattenPiece.
+ * @throws GeometryError BAD_OPTION for a budget that is not a positive number or a piece cap below 1.
+ */
+export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOptions = {}): Uint8Array {
+  const budget = options.stretchBudgetPct ?? 3;
+  if (!(budget > 0) || !Number.isFinite(budget)) {
+    throw new GeometryError('BAD_OPTION', `stretch budget must be a positive percentage, got ${budget}`);
+  }
+  const maxPieces = options.maxPieces ?? Infinity;
+  if (!(maxPieces >= 1)) throw new GeometryError('BAD_OPTION', `maxPieces must be at least 1, got ${maxPieces}`);
+  const graph = faceGraph(mesh, twin);
+  const F = graph.faceCount;
+  const chartOf = new Int32Array(F).fill(-1);
+  const fits = (faces: Int32Array): boolean => chartStretchPct(mesh, faces, options.arapIterations) <= budget;
+
+  // Connected parts first: each is a chart to start from.
+  const pending: Int32Array[] = components(graph);
+  const accepted: Int32Array[] = [];
+  while (pending.length > 0) {
+    const chart = pending.pop()!;
+    const room = accepted.length + pending.length + 1 < maxPieces;
+    if (chart.length === 1 || !room || (!isClosed(graph, chart) && fits(chart))) {
+      accepted.push(chart);
+      continue;
+    }
+    const [a, b] = splitChart(graph, chart);
+    pending.push(a, b);
+  }
+  accepted.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
+  mergeCharts(graph, chartOf, accepted.length, fits);
+
+  const mask = new Uint8Array(3 * F);
+  for (let h = 0; h < 3 * F; h++) {
+    const t = twin[h];
+    if (t >= 0 && chartOf[(h / 3) | 0] !== chartOf[(t / 3) | 0]) mask[h] = 1;
+  }
+  return mask;
+}
+
+interface FaceGraph {
+  faceCount: number;
+  twin: Int32Array;
+  normals: Float64Array;
+  centroids: Float64Array;
+}
+
+function faceGraph(mesh: TriMesh, twin: Int32Array): FaceGraph {
+  const { positions: p, triangles: t } = mesh;
+  const F = t.length / 3;
+  const normals = new Float64Array(3 * F);
+  const centroids = new Float64Array(3 * F);
+  for (let f = 0; f < F; f++) {
+    const a = 3 * t[3 * f];
+    const b = 3 * t[3 * f + 1];
+    const c = 3 * t[3 * f + 2];
+    const ux = p[b] - p[a], uy = p[b + 1] - p[a + 1], uz = p[b + 2] - p[a + 2];
+    const vx = p[c] - p[a], vy = p[c + 1] - p[a + 1], vz = p[c + 2] - p[a + 2];
+    const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
+    const len = Math.hypot(nx, ny, nz) || 1;
+    normals[3 * f] = nx / len;
+    normals[3 * f + 1] = ny / len;
+    normals[3 * f + 2] = nz / len;
+    for (let k = 0; k < 3; k++) centroids[3 * f + k] = (p[a + k] + p[b + k] + p[c + k]) / 3;
+  }
+  return { faceCount: F, twin, normals, centroids };
+}
+
+const dot = (n: Float64Array, f: number, g: number): number =>
+  n[3 * f] * n[3 * g] + n[3 * f + 1] * n[3 * g + 1] + n[3 * f + 2] * n[3 * g + 2];
+
+function centroidDistance(g: FaceGraph, f: number, h: number): number {
+  const c = g.centroids;
+  return Math.hypot(c[3 * f] - c[3 * h], c[3 * f + 1] - c[3 * h + 1], c[3 * f + 2] - c[3 * h + 2]);
+}
+
+function components(g: FaceGraph): Int32Array[] {
+  const seen = new Uint8Array(g.faceCount);
+  const out: Int32Array[] = [];
+  for (let s = 0; s < g.faceCount; s++) {
+    if (seen[s]) continue;
+    const list = [s];
+    seen[s] = 1;
+    for (let i = 0; i < list.length; i++) {
+      const f = list[i];
+      for (let k = 0; k < 3; k++) {
+        const t = g.twin[3 * f + k];
+        if (t < 0) continue;
+        const n = (t / 3) | 0;
+        if (!seen[n]) {
+          seen[n] = 1;
+          list.push(n);
+        }
+      }
+    }
+    out.push(Int32Array.from(list));
+  }
+  return out.reverse();
+}
+
+function isClosed(g: FaceGraph, faces: Int32Array): boolean {
+  const inChart = new Set(faces);
+  for (const f of faces) {
+    for (let k = 0; k < 3; k++) {
+      const t = g.twin[3 * f + k];
+      if (t < 0 || !inChart.has((t / 3) | 0)) return false;
+    }
+  }
+  return true;
+}
+
+/**
+ * Multi-source Dijkstra over the faces of one chart. Returns per face (indexed by position in `faces`) the
+ * distance and the seed it was reached from. `proxy` adds the planar-proxy and crease terms.
+ */
+function growFrom(g: FaceGraph, faces: Int32Array, seeds: number[], proxy: boolean): { dist: Float64Array; label: Int32Array } {
+  const local = new Map<number, number>();
+  faces.forEach((f, i) => local.set(f, i));
+  const n = faces.length;
+  const dist = new Float64Array(n).fill(Infinity);
+  const label = new Int32Array(n).fill(-1);
+  const heap = new MinHeap(n);
+  seeds.forEach((s, k) => {
+    const i = local.get(s)!;
+    dist[i] = 0;
+    label[i] = k;
+    heap.push(i, 0);
+  });
+  const done = new Uint8Array(n);
+  while (heap.size > 0) {
+    const i = heap.pop();
+    if (done[i]) continue;
+    done[i] = 1;
+    const f = faces[i];
+    const seed = seeds[label[i]];
+    for (let k = 0; k < 3; k++) {
+      const t = g.twin[3 * f + k];
+      if (t < 0) continue;
+      const nf = (t / 3) | 0;
+      const j = local.get(nf);
+      if (j === undefined || done[j]) continue;
+      let w = centroidDistance(g, f, nf);
+      if (proxy) {
+        w *= 1 + CREASE_WEIGHT * (1 - dot(g.normals, f, nf)) + PROXY_WEIGHT * (1 - dot(g.normals, seed, nf));
+      }
+      const d = dist[i] + w;
+      if (d < dist[j]) {
+        dist[j] = d;
+        label[j] = label[i];
+        heap.push(j, d);
+      }
+    }
+  }
+  return { dist, label };
+}
+
+/** Splits a connected chart in two, grown from its two geodesically farthest faces. */
+function splitChart(g: FaceGraph, faces: Int32Array): [Int32Array, Int32Array] {
+  const farthest = (from: number): number => {
+    const { dist } = growFrom(g, faces, [from], false);
+    let best = 0;
+    for (let i = 1; i < dist.length; i++) if (dist[i] > dist[best] && Number.isFinite(dist[i])) best = i;
+    return faces[best];
+  };
+  const a = farthest(faces[0]);
+  const b = farthest(a);
+  const { label } = growFrom(g, faces, [a, b === a ? faces[faces.length - 1] : b], true);
+  const first: number[] = [];
+  const second: number[] = [];
+  faces.forEach((f, i) => (label[i] === 0 ? first : second).push(f));
+  return [Int32Array.from(first), Int32Array.from(second)];
+}
+
+/** Max stretch of a chart after flattening, percent; Infinity when it cannot be flattened. */
+function chartStretchPct(mesh: TriMesh, faces: Int32Array, arapIterations?: number): number {
+  const remap = new Map<number, number>();
+  const triangles = new Uint32Array(3 * faces.length);
+  const coords: number[] = [];
+  faces.forEach((f, i) => {
+    for (let k = 0; k < 3; k++) {
+      const v = mesh.triangles[3 * f + k];
+      let lv = remap.get(v);
+      if (lv === undefined) {
+        lv = remap.size;
+        remap.set(v, lv);
+        coords.push(mesh.positions[3 * v], mesh.positions[3 * v + 1], mesh.positions[3 * v + 2]);
+      }
+      triangles[3 * i + k] = lv;
+    }
+  });
+  try {
+    const flat = flattenPiece(
+      { positions: Float64Array.from(coords), triangles },
+      arapIterations === undefined ? undefined : { arapIterations },
+    );
+    return flat.flipped > 0 ? Infinity : flat.stretch.maxPct;
+  } catch (e) {
+    if (isGeometryError(e)) return Infinity;
+    throw e;
+  }
+}
+
+/**
+ * Greedy merge of neighbouring charts: pairs sharing the longest seam are tried first; a merge is kept when the
+ * union still fits. Relabels `chartOf` in place.
+ */
+function mergeCharts(g: FaceGraph, chartOf: Int32Array, chartCount: number, fits: (faces: Int32Array) => boolean): void {
+  const shared = new Map<string, number>();
+  for (let f = 0; f < g.faceCount; f++) {
+    for (let k = 0; k < 3; k++) {
+      const t = g.twin[3 * f + k];
+      if (t < 0) continue;
+      const a = chartOf[f];
+      const b = chartOf[(t / 3) | 0];
+      if (a >= b) continue;
+      const key = `${a}:${b}`;
+      shared.set(key, (shared.get(key) ?? 0) + centroidDistance(g, f, (t / 3) | 0));
+    }
+  }
+  const pairs = [...shared.entries()]
+    .map(([key, len]) => {
+      const [a, b] = key.split(':').map(Number);
+      return { a, b, len };
+    })
+    .sort((x, y) => y.len - x.len || x.a - y.a || x.b - y.b);
+  const members: number[][] = Array.from({ length: chartCount }, () => []);
+  for (let f = 0; f < g.faceCount; f++) members[chartOf[f]].push(f);
+  const parent = Int32Array.from({ length: chartCount }, (_, i) => i);
+  const root = (c: number): number => {
+    while (parent[c] !== c) c = parent[c] = parent[parent[c]];
+    return c;
+  };
+  for (const { a, b } of pairs) {
+    const ra = root(a);
+    const rb = root(b);
+    if (ra === rb) continue;
+    const union = Int32Array.from([...members[ra], ...members[rb]]);
+    if (!fits(union)) continue;
+    parent[rb] = ra;
+    members[ra] = Array.from(union);
+    members[rb] = [];
+  }
+  const newId = new Int32Array(chartCount).fill(-1);
+  let next = 0;
+  for (let f = 0; f < g.faceCount; f++) {
+    const r = root(chartOf[f]);
+    if (newId[r] < 0) newId[r] = next++;
+    chartOf[f] = newId[r];
+  }
+}
