@@ -129,7 +129,7 @@ describe('sign-in and sign-out', () => {
   });
 
   it('spends comparable time on an unknown e-mail as on a wrong password (OWASP: avoid user enumeration by timing; bound is common practice)', async () => {
-    const person = await insertPerson(ctx.db, 'timing');
+    const people = await Promise.all([1, 2, 3, 4].map(() => insertPerson(ctx.db, 'timing')));
     const time = async (email: string) => {
       const t0 = performance.now();
       await request(ctx.app).post('/api/auth/signin').send({ email, password: 'not-the-password' });
@@ -137,12 +137,13 @@ describe('sign-in and sign-out', () => {
     };
     await time(uniqueEmail('warm'));
     // The fastest of several tries filters out pauses from other work on a shared machine.
-    const fastest = async (emailFor: () => string) => {
+    const fastest = async (emailFor: () => string): Promise<number> => {
       let best = Infinity;
       for (let i = 0; i < 4; i++) best = Math.min(best, await time(emailFor()));
       return best;
     };
-    const known = await fastest(() => person.email);
+    // A different known account per try keeps every try under the sign-in limit (3 failures per address here).
+    const known = await fastest(() => people.shift()!.email);
     const unknown = await fastest(() => uniqueEmail('ghost'));
     // Without the decoy hash an unknown address answers in ~1 ms against ~20+ ms for an argon2 check.
     expect(unknown).toBeGreaterThan(known * 0.4);
