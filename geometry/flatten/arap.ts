@@ -1,8 +1,7 @@
 import { GeometryError } from '../errors';
 import { choleskyFactor } from '../sparse/cholesky';
 import { principalSubmatrix } from '../sparse/sparse-symmetric-matrix';
-import { cotanLaplacian } from './cotan-laplacian';
-import { cotanWeights } from './cotan-weights';
+import { preparePiece, restrictOrder, type PreparedPiece } from './prepared-piece';
 import { signedAreas } from './signed-area';
 
 export interface ArapOptions {
@@ -22,8 +21,8 @@ export interface ArapOptions {
  * changes by less than `tolerance` relative, or after `iterations`. Flip guard: a round that would invert
  * more triangles than the current iterate is shortened by halving the step toward it (up to 12 halvings);
  * if no shortened step keeps the count, the current iterate is returned. So the result never has more
- * inverted triangles than `initialUV`. `positions` 3V mm, `triangles` 3F as for lscm; the piece must pass
- * pieceTopology (the caller checks). Throws GeometryError FLATTEN_FAILED on bad sizes or a failed solve.
+ * inverted triangles than `initialUV`. `positions` 3V mm, `triangles` 3F as for lscm. Throws GeometryError
+ * FLATTEN_FAILED for a piece pieceTopology refuses, bad sizes or options, or a failed solve.
  */
 export function arapFlatten(
   positions: Float64Array,
@@ -31,6 +30,12 @@ export function arapFlatten(
   initialUV: Float64Array,
   opts: ArapOptions = {},
 ): Float64Array {
+  return arapFlattenPrepared(preparePiece(positions, triangles), initialUV, opts);
+}
+
+/** arapFlatten on a piece already prepared by preparePiece (same result, shared precomputation). */
+export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Array, opts: ArapOptions = {}): Float64Array {
+  const { positions, triangles, cot } = piece;
   const nv = positions.length / 3;
   const nf = triangles.length / 3;
   const maxRounds = opts.iterations ?? 60;
@@ -48,7 +53,6 @@ export function arapFlatten(
     }
   }
 
-  const cot = cotanWeights(positions, triangles);
   const local = isometricTriangles(positions, triangles);
   // Global step: L·u = Σ ½cot_h·R_f(x_a − x_b) (per half-edge a→b, into a and minus into b), L the
   // cotangent Laplacian with vertex `held` removed to fix the translation.
@@ -57,7 +61,7 @@ export function arapFlatten(
   for (let v = 0, k = 0; v < nv; v++) index[v] = v === held ? -1 : k++;
   let factor;
   try {
-    factor = choleskyFactor(principalSubmatrix(cotanLaplacian(triangles, cot, nv), index, nv - 1));
+    factor = choleskyFactor(principalSubmatrix(piece.laplacian, index, nv - 1), restrictOrder(piece.vertexOrder, index, nv - 1));
   } catch (e) {
     throw new GeometryError('FLATTEN_FAILED', `ARAP system could not be factored: ${(e as Error).message}`);
   }

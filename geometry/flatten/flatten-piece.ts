@@ -1,10 +1,10 @@
 import { GeometryError } from '../errors';
 import type { TriMesh } from '../mesh/tri-mesh';
-import { arapFlatten } from './arap';
+import { arapFlattenPrepared } from './arap';
 import { boundaryLoops } from './boundary-loops';
 import { canonicalPose } from './canonical-pose';
-import { lscm } from './lscm';
-import { pieceTopology } from './piece-topology';
+import { lscmPrepared } from './lscm';
+import { preparePiece } from './prepared-piece';
 import { signedAreas } from './signed-area';
 import { triangleStretch } from './triangle-stretch';
 import { tutteEmbedding } from './tutte-embedding';
@@ -61,19 +61,19 @@ export function flattenPiece(piece: TriMesh, opts: FlattenOptions = {}): FlatPie
     const perRound = ARAP_MS_PER_TRIANGLE_ROUND * (triangles.length / 3);
     rounds = Math.min(rounds, Math.max(1, Math.floor(opts.maxMillis / perRound)));
   }
+  const prepared = preparePiece(positions, triangles);
   const area3d = surfaceArea(positions, triangles);
-  let flat = arapFlatten(positions, triangles, scaledToArea(lscm(positions, triangles), triangles, area3d), {
+  let flat = arapFlattenPrepared(prepared, scaledToArea(lscmPrepared(prepared), triangles, area3d), {
     iterations: rounds,
   });
   let flips = countInverted(flat, triangles);
   if (flips > 0) {
     // Rare: the conformal start (two pins) folded somewhere and ARAP could not unfold it. Restart from the
     // barycentric embedding, which has no inverted triangle on a disk, so the flip-guarded ARAP keeps none.
-    const topo = pieceTopology(positions, triangles);
+    const { topo } = prepared;
     const outer = boundaryLoops(positions, triangles, topo.boundary)[0];
-    const retry = arapFlatten(
-      positions,
-      triangles,
+    const retry = arapFlattenPrepared(
+      prepared,
       scaledToArea(tutteEmbedding(positions, triangles, topo.twin, outer), triangles, area3d),
       { iterations: 2 * rounds },
     );

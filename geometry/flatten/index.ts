@@ -8,3 +8,4 @@ export { pieceTopology, type PieceTopology } from './piece-topology';
 export { signedAreas } from './signed-area';
 export { tutteEmbedding } from './tutte-embedding';
 export { boundaryLoops } from './boundary-loops';
+export { preparePiece, restrictOrder, type PreparedPiece } from './prepared-piece';

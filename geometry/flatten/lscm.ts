@@ -1,10 +1,7 @@
 import { GeometryError } from '../errors';
-import { choleskyFactor } from '../sparse/cholesky';
-import { amdOrdering } from '../sparse/fill-ordering';
-import { principalSubmatrix, type SparseSymmetricMatrix } from '../sparse/sparse-symmetric-matrix';
-import { cotanLaplacian } from './cotan-laplacian';
-import { cotanWeights } from './cotan-weights';
-import { pieceTopology } from './piece-topology';
+import { choleskyFactor2x2 } from '../sparse/block2-cholesky';
+import type { SparseSymmetricMatrix } from '../sparse/sparse-symmetric-matrix';
+import { preparePiece, restrictOrder, type PreparedPiece } from './prepared-piece';
 
 /** Vertices held fixed in the plane: vertex[k] goes to (uv[2k], uv[2k+1]), millimetres. */
 export interface LscmPins {
@@ -18,14 +15,20 @@ export interface LscmPins {
  * E_C = E_Dirichlet − Area (Desbrun, Meyer & Alliez 2002, "Intrinsic parameterizations of surface meshes";
  * Mullen et al. 2008, "Spectral conformal parameterization"): the cotangent Dirichlet energy of u and v
  * minus the signed area enclosed by the boundary loops, minimised with at least two vertices pinned. The
- * system is symmetric positive definite once two vertices are pinned and is solved with the sparse LDLᵀ.
+ * system is symmetric positive definite once two vertices are pinned and is solved with the sparse LDLᵀ
+ * in 2×2 blocks (u and v of a vertex together).
  * `positions` 3V (mm), `triangles` 3F counter-clockwise seen from the visible side; the result is
  * counter-clockwise in the plane too. Without `pins` the two boundary vertices farthest apart (by a
  * double sweep) are pinned at (0, 0) and (d, 0), d their 3D distance, so the scale is roughly right.
  * Throws GeometryError FLATTEN_FAILED for a piece that cannot be flattened (see pieceTopology) or bad pins.
  */
 export function lscm(positions: Float64Array, triangles: Uint32Array, pins?: LscmPins): Float64Array {
-  const topo = pieceTopology(positions, triangles);
+  return lscmPrepared(preparePiece(positions, triangles), pins);
+}
+
+/** lscm on a piece already prepared by preparePiece (same result, shared precomputation). */
+export function lscmPrepared(piece: PreparedPiece, pins?: LscmPins): Float64Array {
+  const { positions, triangles, topo } = piece;
   const nv = positions.length / 3;
   const { pinVertex, pinUV } = pins ? checkPins(pins, nv) : farthestBoundaryPins(positions, triangles, topo.boundary);
 
@@ -44,7 +47,7 @@ export function lscm(positions: Float64Array, triangles: Uint32Array, pins?: Lsc
   // Hessian of E_C in 2×2 blocks: block (i, j) = [[L_ij, −s_ij], [s_ij, L_ij]], L the cotangent Laplacian
   // (the Dirichlet part) and s_ij = ½ if i→j is a boundary half-edge, −½ if j→i is: the Hessian of the
   // enclosed area ½Σ(u_a v_b − u_b v_a) over boundary half-edges a→b, which E_C subtracts.
-  const lap = cotanLaplacian(triangles, cotanWeights(positions, triangles), nv);
+  const lap = piece.laplacian;
   const area = new Float64Array(lap.rowIdx.length);
   for (const h of topo.boundary) {
     const a = triangles[h];
@@ -103,15 +106,9 @@ export function lscm(positions: Float64Array, triangles: Uint32Array, pins?: Lsc
   }
   colPtr[2 * m] = q;
   const matrix = { n: 2 * m, colPtr, rowIdx, values };
-  const vertexOrder = amdOrdering(principalSubmatrix(lap, vfree, m));
-  const order = new Int32Array(2 * m);
-  for (let k = 0; k < m; k++) {
-    order[2 * k] = 2 * vertexOrder[k];
-    order[2 * k + 1] = 2 * vertexOrder[k] + 1;
-  }
   let solution: Float64Array;
   try {
-    solution = choleskyFactor(matrix, order).solve(rhs);
+    solution = choleskyFactor2x2(matrix, restrictOrder(piece.vertexOrder, vfree, m)).solve(rhs);
   } catch (e) {
     throw new GeometryError(
       'FLATTEN_FAILED',

@@ -2,4 +2,5 @@ export { fromTriplets, multiply, diagonal, principalSubmatrix, type SparseSymmet
 export { amdOrdering } from './fill-ordering';
 export { nestedDissectionOrdering } from './nested-dissection';
 export { choleskyFactor, CholeskyFactor } from './cholesky';
+export { choleskyFactor2x2, Cholesky2x2Factor } from './block2-cholesky';
 export { pcgSolve, type PcgOptions, type PcgResult } from './pcg';
