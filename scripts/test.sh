@@ -23,7 +23,12 @@ pg_recreate_database "$TEST_DB"
 export DATABASE_URL
 DATABASE_URL=$(pg_url "$TEST_DB")
 node --import tsx db/migrate.ts
-ensure_web_build || echo "test: the browser tests will use whatever dist/ holds" >&2
+web_build_ok=1
+ensure_web_build || web_build_ok=0
+if [ "$web_build_ok" -eq 0 ]; then
+  # Keep testing the rest, but a broken web build is a failed run: the browser tests would skip on no dist/.
+  echo "test: the web build failed; the run will be marked failed (see .data/logs/web-build.log)" >&2
+fi
 
 if [ ! -x /usr/bin/chromium ]; then
   if [ "$(id -u)" -eq 0 ]; then
@@ -53,5 +58,9 @@ if [ -s "$report" ]; then
 else
   echo "0 passed, 0 failed (vitest wrote no report; exit status $status)"
   [ "$status" -ne 0 ] || status=1
+fi
+if [ "$web_build_ok" -eq 0 ]; then
+  echo "test: failed because the web app did not build"
+  status=1
 fi
 exit "$status"
