@@ -23,18 +23,23 @@ export function surfaceArea(mesh: TriMesh): number {
 }
 
 /**
- * Returns the signed volume enclosed by `mesh` in mm³ (sum of signed tetrahedra from the origin; divergence
- * theorem). Positive for a closed mesh whose triangles are counter-clockwise seen from outside.
+ * Returns the signed volume enclosed by `mesh` in mm³: the sum of signed tetrahedra from a reference point to
+ * each triangle (divergence theorem). The reference is the first vertex rather than the origin, so a small
+ * part far from the origin loses no precision to cancellation; for a closed mesh the result does not depend on
+ * the reference. Positive for a closed mesh whose triangles are counter-clockwise seen from outside.
  */
 export function signedVolume(mesh: TriMesh): number {
   const P = mesh.positions;
   const T = mesh.triangles;
+  if (T.length === 0) return 0;
+  const ox = P[0], oy = P[1], oz = P[2];
   let v = 0;
   for (let f = 0; f < T.length; f += 3) {
     const a = 3 * T[f], b = 3 * T[f + 1], c = 3 * T[f + 2];
-    v += P[a] * (P[b + 1] * P[c + 2] - P[b + 2] * P[c + 1])
-      - P[a + 1] * (P[b] * P[c + 2] - P[b + 2] * P[c])
-      + P[a + 2] * (P[b] * P[c + 1] - P[b + 1] * P[c]);
+    const ax = P[a] - ox, ay = P[a + 1] - oy, az = P[a + 2] - oz;
+    const bx = P[b] - ox, by = P[b + 1] - oy, bz = P[b + 2] - oz;
+    const cx = P[c] - ox, cy = P[c + 1] - oy, cz = P[c + 2] - oz;
+    v += ax * (by * cz - bz * cy) - ay * (bx * cz - bz * cx) + az * (bx * cy - by * cx);
   }
   return v / 6;
 }

@@ -74,10 +74,12 @@ export function orientFaces(positions: Float64Array, triangles: Uint32Array): Or
   for (let f = 0; f < F; f++) {
     const c = component[f];
     for (let i = 0; i < 3; i++) if (partner[3 * f + i] < 0) open[c] = 1;
+    // Tetrahedra from the first vertex, not the origin, so parts far from the origin keep their precision.
     const a = 3 * out[3 * f], b = 3 * out[3 * f + 1], d = 3 * out[3 * f + 2];
-    volume[c] += positions[a] * (positions[b + 1] * positions[d + 2] - positions[b + 2] * positions[d + 1])
-      - positions[a + 1] * (positions[b] * positions[d + 2] - positions[b + 2] * positions[d])
-      + positions[a + 2] * (positions[b] * positions[d + 1] - positions[b + 1] * positions[d]);
+    const ax = positions[a] - positions[0], ay = positions[a + 1] - positions[1], az = positions[a + 2] - positions[2];
+    const bx = positions[b] - positions[0], by = positions[b + 1] - positions[1], bz = positions[b + 2] - positions[2];
+    const dx = positions[d] - positions[0], dy = positions[d + 1] - positions[1], dz = positions[d + 2] - positions[2];
+    volume[c] += ax * (by * dz - bz * dy) - ay * (bx * dz - bz * dx) + az * (bx * dy - by * dx);
   }
   const size = new Uint32Array(components);
   const flippedIn = new Uint32Array(components);

@@ -101,7 +101,7 @@ export function findSymmetryPlane(mesh: TriMesh): SymmetryPlane | null {
     let offset = n[0] * c[0] + n[1] * c[1] + n[2] * c[2];
     let score = planeError(P, V, step, grid, n, offset, reach);
     for (let it = 0; it < REFINE_STEPS && score.error < Infinity; it++) {
-      const refined = refinePlane(P, V, step, grid, n, offset, reach);
+      const refined = refinePlane(P, V, step, grid, n, offset, reach, score.error);
       if (!refined) break;
       const s2 = planeError(P, V, step, grid, refined.n, refined.offset, reach);
       if (!(s2.error < score.error)) break;
@@ -134,34 +134,38 @@ function planeError(P: Float64Array, V: number, step: number, grid: VertexGrid, 
   return { error: Math.sqrt(sum / count) };
 }
 
-function refinePlane(P: Float64Array, V: number, step: number, grid: VertexGrid, n: number[], offset: number, reach: number): { n: number[]; offset: number } | null {
+function refinePlane(P: Float64Array, V: number, step: number, grid: VertexGrid, n: number[], offset: number, reach: number, currentError: number): { n: number[]; offset: number } | null {
   // Each vertex v and the vertex w nearest its mirror image form a pair; the ideal plane bisects every pair.
-  const acc = [0, 0, 0];
-  let mid = 0;
-  let count = 0;
+  // Pairs that match poorly (residual over twice the current RMS error) are left out as mismatches.
+  const limit2 = (2 * currentError) ** 2 + 1e-24;
+  const pairs: number[] = [];
   for (let v = 0; v < V; v += step) {
-    const p = [P[3 * v], P[3 * v + 1], P[3 * v + 2]];
-    const r = reflect(p, n, offset);
+    const r = reflect([P[3 * v], P[3 * v + 1], P[3 * v + 2]], n, offset);
     const w = grid.nearest(r[0], r[1], r[2], reach);
     if (w < 0 || w === v) continue;
-    const d = [p[0] - P[3 * w], p[1] - P[3 * w + 1], p[2] - P[3 * w + 2]];
+    const res2 = (P[3 * w] - r[0]) ** 2 + (P[3 * w + 1] - r[1]) ** 2 + (P[3 * w + 2] - r[2]) ** 2;
+    if (res2 <= limit2) pairs.push(v, w);
+  }
+  if (pairs.length < 6) return null;
+  const acc = [0, 0, 0];
+  for (let i = 0; i < pairs.length; i += 2) {
+    const v = pairs[i];
+    const w = pairs[i + 1];
+    const d = [P[3 * v] - P[3 * w], P[3 * v + 1] - P[3 * w + 1], P[3 * v + 2] - P[3 * w + 2]];
     const dl = Math.hypot(d[0], d[1], d[2]);
-    if (dl === 0) continue;
     const sgn = d[0] * n[0] + d[1] * n[1] + d[2] * n[2] >= 0 ? 1 : -1;
     for (let k = 0; k < 3; k++) acc[k] += (sgn * d[k]) / dl;
-    count++;
   }
   const l = Math.hypot(acc[0], acc[1], acc[2]);
-  if (count < 3 || l === 0) return null;
+  if (l === 0) return null;
   const m = acc.map((x) => x / l);
-  for (let v = 0; v < V; v += step) {
-    const p = [P[3 * v], P[3 * v + 1], P[3 * v + 2]];
-    const r = reflect(p, m, offset);
-    const w = grid.nearest(r[0], r[1], r[2], reach);
-    if (w < 0 || w === v) continue;
-    mid += (m[0] * (p[0] + P[3 * w]) + m[1] * (p[1] + P[3 * w + 1]) + m[2] * (p[2] + P[3 * w + 2])) / 2;
+  let mid = 0;
+  for (let i = 0; i < pairs.length; i += 2) {
+    const v = pairs[i];
+    const w = pairs[i + 1];
+    mid += (m[0] * (P[3 * v] + P[3 * w]) + m[1] * (P[3 * v + 1] + P[3 * w + 1]) + m[2] * (P[3 * v + 2] + P[3 * w + 2])) / 2;
   }
-  return { n: m, offset: count > 0 ? mid / count : offset };
+  return { n: m, offset: mid / (pairs.length / 2) };
 }
 
 /**
