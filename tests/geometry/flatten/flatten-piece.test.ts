@@ -4,7 +4,7 @@ import { flattenPiece } from '../../../geometry/flatten/flatten-piece';
 import { signedAreas } from '../../../geometry/flatten/signed-area';
 import { triangleStretch } from '../../../geometry/flatten/triangle-stretch';
 import type { TriMesh } from '../../../geometry/mesh/tri-mesh';
-import { cone, cylinder, icoSphere, sphereGore } from '../../../geometry/shapes';
+import { cone, cylinder, helmetShell, icoSphere, sphereGore } from '../../../geometry/shapes';
 import { cutOpenAtAzimuthZero } from './cut-open';
 import { annulusPiece, gridPiece, length2, length3, worstEdgeRatio } from './test-meshes';
 
@@ -252,6 +252,34 @@ describe('flattenPiece output', () => {
     expect(full.stretch.rmsPct).toBeLessThan(none.stretch.rmsPct);
     const tight = flattenPiece(piece, { maxMillis: 1e-9 });
     expect(tight.stretch.rmsPct).toBeGreaterThan(full.stretch.rmsPct);
+  });
+});
+
+describe('flattenPiece never inverts a triangle', () => {
+  /** icoSphere(100, 3) without the triangles whose corners all lie above height `zCut`. */
+  const sphereMinusCap = (zCut: number): TriMesh => {
+    const sphere = icoSphere(100, 3);
+    const keep: number[] = [];
+    for (let f = 0; f < sphere.triangles.length / 3; f++) {
+      const c = [0, 1, 2].map((k) => sphere.triangles[3 * f + k]);
+      if (!c.every((v) => sphere.positions[3 * v + 2] > zCut)) keep.push(...c);
+    }
+    return dropUnusedVertices({ positions: sphere.positions, triangles: Uint32Array.from(keep) }).piece;
+  };
+  it.each([
+    ['the demo helmet shell (dome and brim as one piece)', () => helmetShell()],
+    ['a half-sphere lune (1/2 gore)', () => sphereGore(100, 2, 30, 12)],
+    ['a hemisphere', () => sphereMinusCap(-1e-9)],
+    ['a sphere with a small cap cut off', () => sphereMinusCap(95)],
+    ['a strongly saddle-shaped sheet', () => gridPiece(12, 5, (x, y) => 0.02 * (x - 30) * (y - 30))],
+  ])('on %s', (_, make) => {
+    // A flattening is only usable if every triangle keeps its orientation (Liu et al. 2008 §4 on
+    // foldovers); stretch may be large on these doubly curved pieces, but never a fold.
+    const piece = make();
+    const flat = flattenPiece(piece);
+    expect(flat.flipped).toBe(0);
+    for (const a of signedAreas(flat.uv, piece.triangles)) expect(a).toBeGreaterThan(0);
+    expect(Number.isFinite(flat.stretch.maxPct)).toBe(true);
   });
 });
 
