@@ -201,7 +201,9 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
     }
     const darts: DartSuggestion[] = [];
     if (flat.stretch.maxPct > budget) {
-      const dart = suggestDart({ positions, triangles: piece.triangles }, flat);
+      const suggested = suggestDart({ positions, triangles: piece.triangles }, flat);
+      // A dart is only worth cutting when it leaves less stretch than the piece has without it.
+      const dart = suggested && suggested.stretchAfterPct < flat.stretch.maxPct ? suggested : null;
       if (dart) darts.push(dart);
       warnings.push(
         `piece ${label} stretches up to ${flat.stretch.maxPct.toFixed(1)} % (budget ${budget} %): ` +

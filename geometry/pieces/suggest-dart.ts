@@ -17,9 +17,9 @@ import { splitPieces } from './split-pieces';
  * @param piece the piece's local TriMesh (mm), a disk or a disk with holes.
  * @param flat its flattening (uv in mm, per-triangle stretch percent).
  * @returns the dart's path in the piece's 2D coordinates, from the boundary to the worst-stretched vertex
- *   (the shortest edge path in 3D, Dijkstra 1959, from the nearest boundary vertex), and the max stretch the
- *   piece has once flattened again with the cut open; null when the worst triangle already touches the boundary
- *   (a dart cannot reach further in) or the cut piece cannot be flattened.
+ *   (the shortest edge path in 3D, Dijkstra 1959, from the nearest boundary vertex) or to the vertex deepest inside
+ *   the piece, whichever leaves less stretch, and the max stretch the piece has once flattened again with the cut
+ *   open; null when no interior vertex exists or the cut piece cannot be flattened.
  */
 export function suggestDart(piece: TriMesh, flat: FlatPiece): DartSuggestion | null {
   const { positions, triangles } = piece;
@@ -75,9 +75,32 @@ export function suggestDart(piece: TriMesh, flat: FlatPiece): DartSuggestion | n
       }
     }
   }
-  // The dart's tip: the corner of the worst triangle deepest inside the piece.
+  // Two candidate tips: the corner of the worst triangle deepest inside the piece, and the vertex deepest
+  // inside the piece overall (on a cap the stretch sits at the rim, but it is the closed-up centre that a dart
+  // relieves). The one that leaves less stretch wins.
   let tip = triangles[3 * worst];
   for (let k = 1; k < 3; k++) if (dist[triangles[3 * worst + k]] > dist[tip]) tip = triangles[3 * worst + k];
+  let deepest = 0;
+  for (let v = 1; v < V; v++) if (Number.isFinite(dist[v]) && dist[v] > dist[deepest]) deepest = v;
+  let best: DartSuggestion | null = null;
+  for (const candidate of tip === deepest ? [tip] : [tip, deepest]) {
+    const dart = dartTo(candidate, piece, twin, from, dist, flat);
+    if (dart && (!best || dart.stretchAfterPct < best.stretchAfterPct)) best = dart;
+  }
+  return best;
+}
+
+/** The dart from the nearest boundary vertex to `tip` along the Dijkstra tree `from`, re-flattened. */
+function dartTo(
+  tip: number,
+  piece: TriMesh,
+  twin: Int32Array,
+  from: Int32Array,
+  dist: Float64Array,
+  flat: FlatPiece,
+): DartSuggestion | null {
+  const triangles = piece.triangles;
+  const F = triangles.length / 3;
   if (!(dist[tip] > 0) || !Number.isFinite(dist[tip])) return null;
   const path: number[] = [];
   for (let v = tip; v >= 0; v = from[v]) path.push(v);

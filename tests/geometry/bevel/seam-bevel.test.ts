@@ -5,34 +5,13 @@ import { buildTwins } from '../../../geometry/mesh/half-edges';
 import { interiorDihedralDeg } from '../../../geometry/mesh/dihedral-angles';
 import { cylinder, platonicSolid } from '../../../geometry/shapes';
 import type { TriMesh } from '../../../geometry/mesh/tri-mesh';
+import { hinge as makeHinge } from '../pattern/pattern-fixtures';
 
-/**
- * A hinge of two strips along the x axis, length L: strip A flat (z = 0, y < 0), strip B leaving the axis at
- * a downward tilt φ(x) that falls linearly from 60° at x = 0 to 0° at x = L. The angle between the two
- * half-planes is 180° − φ (elementary solid geometry: the angle between half-planes sharing an edge), so the
- * interior dihedral runs from 120° to 180° along the seam.
- */
+// The interior dihedral of the hinge is 180° − tilt; a tilt falling linearly from 60° to 0° makes it run from
+// 120° to 180° along the seam.
 function hinge(L: number, width: number, steps: number): { mesh: TriMesh; pieceOfFace: Int32Array } {
-  const pos: number[] = [];
-  const tri: number[] = [];
-  const tilt = (x: number): number => ((60 * (1 - x / L)) * Math.PI) / 180;
-  for (let i = 0; i <= steps; i++) {
-    const x = (L * i) / steps;
-    pos.push(x, 0, 0); // axis vertex 3i
-    pos.push(x, -width, 0); // A's outer vertex 3i+1
-    pos.push(x, width * Math.cos(tilt(x)), -width * Math.sin(tilt(x))); // B's outer vertex 3i+2
-  }
-  const piece: number[] = [];
-  for (let i = 0; i < steps; i++) {
-    const a0 = 3 * i, a1 = 3 * (i + 1);
-    // A: counter-clockwise seen from +z (outward normal +z).
-    tri.push(a0 + 1, a1 + 1, a1, a0 + 1, a1, a0);
-    piece.push(0, 0);
-    // B: continues A's orientation across the axis.
-    tri.push(a0, a1, a1 + 2, a0, a1 + 2, a0 + 2);
-    piece.push(1, 1);
-  }
-  return { mesh: { positions: Float64Array.from(pos), triangles: Uint32Array.from(tri) }, pieceOfFace: Int32Array.from(piece) };
+  const h = makeHinge(L, width, steps, (x) => 60 * (1 - x / L));
+  return { mesh: h.mesh, pieceOfFace: h.strip };
 }
 
 function seamMaskBetween(triangles: Uint32Array, twin: Int32Array, pieceOfFace: Int32Array): Uint8Array {
