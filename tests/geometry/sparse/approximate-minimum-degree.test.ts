@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { approximateMinimumDegree } from '../../../geometry/sparse/approximate-minimum-degree';
 import { choleskyFactor } from '../../../geometry/sparse/cholesky';
@@ -93,5 +94,21 @@ describe('approximateMinimumDegree', () => {
     const r = randomSpd(300, 1000, 8);
     const a = fromTriplets(300, r.rows, r.cols, r.vals);
     expect(Array.from(approximateMinimumDegree(a))).toEqual(Array.from(approximateMinimumDegree(a)));
+  });
+
+  it('returns a permutation for any sparsity pattern, sparse to dense (fast-check, seeded)', () => {
+    // Dense patterns overflow the initial workspace and exercise its compaction.
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 120 }),
+        fc.array(fc.tuple(fc.nat(), fc.nat()), { maxLength: 3000 }),
+        (n, pairs) => {
+          const edges = pairs.map(([i, j]) => [i % n, j % n] as [number, number]).filter(([i, j]) => i !== j);
+          const p = approximateMinimumDegree(laplacianOf(n, edges));
+          expect(isPermutation(p, n)).toBe(true);
+        },
+      ),
+      { seed: 1996, numRuns: 150 },
+    );
   });
 });
