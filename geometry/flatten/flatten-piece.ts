@@ -43,8 +43,9 @@ export const ARAP_MS_PER_TRIANGLE_ROUND = 4e-4;
  * start, scaled so its area equals the 3D area, then local/global ARAP (Liu et al. 2008), then the
  * canonical pose (see canonicalPose) with per-triangle stretch (Sander et al. 2001). Should the result
  * still hold an inverted triangle, the flattening is redone from the barycentric embedding (Tutte 1963,
- * Floater 1997; see tutteEmbedding) with twice the ARAP rounds and the one with fewer inversions is kept. The piece must be a
- * connected, consistently wound surface with at least one boundary loop (a disk, or a disk with holes).
+ * Floater 1997; see tutteEmbedding) with twice the ARAP rounds, and the one with fewer inversions is kept.
+ * The piece must be a connected, consistently wound surface with at least one boundary loop (a disk, or a
+ * disk with holes).
  * Deterministic: the same piece gives the same numbers. Never returns NaN: throws GeometryError
  * FLATTEN_FAILED saying why (no boundary, separate parts, zero-area triangle, non-manifold edge, …).
  */
