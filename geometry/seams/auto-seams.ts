@@ -9,7 +9,9 @@
  * stretch. Sheetsmith's own schedule: every connected part starts as one chart; a chart over budget (or one
  * that cannot be flattened, such as a closed shell) is split in two by growing from its two geodesically
  * farthest faces; this repeats until every chart fits. Then neighbouring charts are merged back wherever the
- * merged chart still fits, longest shared seam first, which removes the needless cuts bisection leaves.
+ * merged chart still fits, longest shared seam first, which removes the needless cuts bisection leaves. Trial
+ * flattenings use few ARAP rounds and a chart that cannot fit by the isoperimetric inequality is never flattened
+ * at all; the final charts are checked with the full flattening and split again if they do not fit.
  */
 import { flattenPiece } from '../flatten/flatten-piece';
 import { GeometryError, isGeometryError } from '../errors';
@@ -21,14 +23,16 @@ export interface AutoSeamOptions {
   stretchBudgetPct?: number;
   /** Stop splitting once this many pieces exist (the pieces left over budget are then reported by the caller). */
   maxPieces?: number;
-  /** ARAP iterations for each trial flattening (default: flattenPiece's own). */
-  arapIterations?: number;
+  /** ARAP rounds of the quick trial flattenings while charts are split and merged (default 10). */
+  trialArapIterations?: number;
 }
 
 /** How strongly a sharp edge resists being crossed by a growing chart (dimensionless, tuned on the test shapes). */
 const CREASE_WEIGHT = 12;
 /** How strongly a face whose normal departs from the seed's normal resists joining the seed's chart. */
 const PROXY_WEIGHT = 2;
+/** ARAP rounds of a trial flattening: enough to rank charts; the final check uses flattenPiece's default. */
+const TRIAL_ARAP_ITERATIONS = 10;
 
 /**
  * Seams that cut the mesh into pieces within the stretch budget.
@@ -37,7 +41,8 @@ const PROXY_WEIGHT = 2;
  * @param twin Int32Array(3F) half-edge twins, −1 on a boundary (non-manifold edges unpaired).
  * @param options stretch budget (percent, > 0) and optional piece cap.
  * @returns SeamMask: Uint8Array(3F), both half-edges of every seam edge set. Every piece the mask cuts out is
- *   connected and, unless `maxPieces` stopped the splitting, flattens within the budget with flattenPiece.
+ *   connected and, unless `maxPieces` stopped the splitting, flattens within the budget with flattenPiece's
+ *   default settings (each final piece is checked that way; quicker trial flattenings only steer the search).
  * @throws GeometryError BAD_OPTION for a budget that is not a positive number or a piece cap below 1.
  */
 export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOptions = {}): Uint8Array {
@@ -49,24 +54,20 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
   if (!(maxPieces >= 1)) throw new GeometryError('BAD_OPTION', `maxPieces must be at least 1, got ${maxPieces}`);
   const graph = faceGraph(mesh, twin);
   const F = graph.faceCount;
-  const chartOf = new Int32Array(F).fill(-1);
-  const fits = (faces: Int32Array): boolean => chartStretchPct(mesh, faces, options.arapIterations) <= budget;
+  const trialIterations = options.trialArapIterations ?? TRIAL_ARAP_ITERATIONS;
+  const possible = (faces: ArrayLike<number>): boolean => isoperimetricallyPossible(graph, faces, budget);
+  const fitsTrial = (faces: Int32Array): boolean =>
+    possible(faces) && chartStretchPct(mesh, faces, trialIterations) <= budget;
+  const fitsFinal = (faces: Int32Array): boolean => possible(faces) && chartStretchPct(mesh, faces) <= budget;
 
-  // Connected parts first: each is a chart to start from.
-  const pending: Int32Array[] = components(graph);
-  const accepted: Int32Array[] = [];
-  while (pending.length > 0) {
-    const chart = pending.pop()!;
-    const room = accepted.length + pending.length + 1 < maxPieces;
-    if (chart.length === 1 || !room || (!isClosed(graph, chart) && fits(chart))) {
-      accepted.push(chart);
-      continue;
-    }
-    const [a, b] = splitChart(graph, chart);
-    pending.push(a, b);
-  }
-  accepted.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
-  mergeCharts(graph, chartOf, accepted.length, fits);
+  // Connected parts first: each is a chart to start from. Split until the trial flattening fits, merge back,
+  // then hold every chart to the real flattening and split again where it does not fit.
+  let charts = splitUntilFit(graph, components(graph), fitsTrial, maxPieces);
+  const chartOf = new Int32Array(F).fill(-1);
+  charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
+  const merged = mergeCharts(graph, chartOf, charts.length, fitsTrial);
+  charts = splitUntilFit(graph, merged, fitsFinal, maxPieces, true);
+  charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
 
   const mask = new Uint8Array(3 * F);
   for (let h = 0; h < 3 * F; h++) {
@@ -76,11 +77,64 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
   return mask;
 }
 
+/**
+ * Splits charts in two until each fits (or the piece cap is reached). With `keepOrder`, charts are checked in the
+ * given order and those that fit keep their place, so a final check changes as little as possible.
+ */
+function splitUntilFit(
+  graph: FaceGraph,
+  start: Int32Array[],
+  fits: (faces: Int32Array) => boolean,
+  maxPieces: number,
+  keepOrder = false,
+): Int32Array[] {
+  const pending = keepOrder ? start.slice().reverse() : start.slice();
+  const accepted: Int32Array[] = [];
+  while (pending.length > 0) {
+    const chart = pending.pop()!;
+    const room = accepted.length + pending.length + 1 < maxPieces;
+    if (chart.length === 1 || !room || (!isClosed(graph, chart) && fits(chart))) {
+      accepted.push(chart);
+      continue;
+    }
+    const [a, b] = splitChart(graph, chart);
+    pending.push(b, a);
+  }
+  return accepted;
+}
+
+/**
+ * A necessary condition for a chart to flatten within ε = budget/100: the planar isoperimetric inequality
+ * L² ≥ 4πA must hold for the flat piece, whose boundary is at most (1+ε) times as long and whose area is at
+ * least (1−ε)² times as large as in 3D (every length scales by at most σmax ≤ 1+ε, every area by at least
+ * σmin² ≥ (1−ε)²). So a chart with (1+ε)²·L² < 4π·(1−ε)²·A cannot fit and is split without trying; a cap of a
+ * sphere or a closed-up region fails this long before a flattening would be worth its cost.
+ */
+function isoperimetricallyPossible(g: FaceGraph, faces: ArrayLike<number>, budget: number): boolean {
+  const inChart = new Set<number>();
+  for (let i = 0; i < faces.length; i++) inChart.add(faces[i]);
+  let area = 0;
+  let boundary = 0;
+  for (let i = 0; i < faces.length; i++) {
+    const f = faces[i];
+    area += g.areas[f];
+    for (let k = 0; k < 3; k++) {
+      const t = g.twin[3 * f + k];
+      if (t < 0 || !inChart.has((t / 3) | 0)) boundary += g.edgeLengths[3 * f + k];
+    }
+  }
+  const e = budget / 100;
+  return (1 + e) ** 2 * boundary * boundary >= 4 * Math.PI * (1 - e) ** 2 * area;
+}
+
 interface FaceGraph {
   faceCount: number;
   twin: Int32Array;
   normals: Float64Array;
   centroids: Float64Array;
+  areas: Float64Array;
+  /** Length of each half-edge's edge, mm. */
+  edgeLengths: Float64Array;
 }
 
 function faceGraph(mesh: TriMesh, twin: Int32Array): FaceGraph {
@@ -88,6 +142,8 @@ function faceGraph(mesh: TriMesh, twin: Int32Array): FaceGraph {
   const F = t.length / 3;
   const normals = new Float64Array(3 * F);
   const centroids = new Float64Array(3 * F);
+  const areas = new Float64Array(F);
+  const edgeLengths = new Float64Array(3 * F);
   for (let f = 0; f < F; f++) {
     const a = 3 * t[3 * f];
     const b = 3 * t[3 * f + 1];
@@ -96,12 +152,19 @@ function faceGraph(mesh: TriMesh, twin: Int32Array): FaceGraph {
     const vx = p[c] - p[a], vy = p[c + 1] - p[a + 1], vz = p[c + 2] - p[a + 2];
     const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
     const len = Math.hypot(nx, ny, nz) || 1;
+    areas[f] = len / 2;
+    const corner = [a, b, c];
+    for (let k = 0; k < 3; k++) {
+      const i = corner[k];
+      const j = corner[(k + 1) % 3];
+      edgeLengths[3 * f + k] = Math.hypot(p[j] - p[i], p[j + 1] - p[i + 1], p[j + 2] - p[i + 2]);
+    }
     normals[3 * f] = nx / len;
     normals[3 * f + 1] = ny / len;
     normals[3 * f + 2] = nz / len;
     for (let k = 0; k < 3; k++) centroids[3 * f + k] = (p[a + k] + p[b + k] + p[c + k]) / 3;
   }
-  return { faceCount: F, twin, normals, centroids };
+  return { faceCount: F, twin, normals, centroids, areas, edgeLengths };
 }
 
 const dot = (n: Float64Array, f: number, g: number): number =>
@@ -239,50 +302,57 @@ function chartStretchPct(mesh: TriMesh, faces: Int32Array, arapIterations?: numb
 }
 
 /**
- * Greedy merge of neighbouring charts: pairs sharing the longest seam are tried first; a merge is kept when the
- * union still fits. Relabels `chartOf` in place.
+ * Greedy merge of neighbouring charts, in rounds: each round tries every pair of neighbouring charts once, the
+ * pairs with the fewest faces together first (a small union is cheap to flatten and most likely to fit), and a
+ * chart takes part in at most one merge per round. A merge is kept when the union fits; a pair that failed is
+ * not tried again until one of the two has grown. Rounds repeat until none merges. Returns the merged charts
+ * in order of their smallest face.
  */
-function mergeCharts(g: FaceGraph, chartOf: Int32Array, chartCount: number, fits: (faces: Int32Array) => boolean): void {
-  const shared = new Map<string, number>();
-  for (let f = 0; f < g.faceCount; f++) {
-    for (let k = 0; k < 3; k++) {
-      const t = g.twin[3 * f + k];
-      if (t < 0) continue;
-      const a = chartOf[f];
-      const b = chartOf[(t / 3) | 0];
-      if (a >= b) continue;
-      const key = `${a}:${b}`;
-      shared.set(key, (shared.get(key) ?? 0) + centroidDistance(g, f, (t / 3) | 0));
-    }
-  }
-  const pairs = [...shared.entries()]
-    .map(([key, len]) => {
-      const [a, b] = key.split(':').map(Number);
-      return { a, b, len };
-    })
-    .sort((x, y) => y.len - x.len || x.a - y.a || x.b - y.b);
+function mergeCharts(g: FaceGraph, chartOf: Int32Array, chartCount: number, fits: (faces: Int32Array) => boolean): Int32Array[] {
   const members: number[][] = Array.from({ length: chartCount }, () => []);
   for (let f = 0; f < g.faceCount; f++) members[chartOf[f]].push(f);
-  const parent = Int32Array.from({ length: chartCount }, (_, i) => i);
-  const root = (c: number): number => {
-    while (parent[c] !== c) c = parent[c] = parent[parent[c]];
-    return c;
-  };
-  for (const { a, b } of pairs) {
-    const ra = root(a);
-    const rb = root(b);
-    if (ra === rb) continue;
-    const union = Int32Array.from([...members[ra], ...members[rb]]);
-    if (!fits(union)) continue;
-    parent[rb] = ra;
-    members[ra] = Array.from(union);
-    members[rb] = [];
+  const label = Int32Array.from(chartOf);
+  const failed = new Set<string>();
+  for (let merged = true; merged; ) {
+    merged = false;
+    const pairs = new Map<string, [number, number]>();
+    for (let f = 0; f < g.faceCount; f++) {
+      for (let k = 0; k < 3; k++) {
+        const t = g.twin[3 * f + k];
+        if (t < 0) continue;
+        const a = label[f];
+        const b = label[(t / 3) | 0];
+        if (a < b) pairs.set(`${a}:${b}:${members[a].length}:${members[b].length}`, [a, b]);
+      }
+    }
+    const order = [...pairs.entries()].sort(
+      ([, [a1, b1]], [, [a2, b2]]) =>
+        members[a1].length + members[b1].length - members[a2].length - members[b2].length || a1 - a2 || b1 - b2,
+    );
+    const touched = new Uint8Array(chartCount);
+    for (const [key, [a, b]] of order) {
+      if (touched[a] || touched[b] || failed.has(key)) continue;
+      const union = Int32Array.from([...members[a], ...members[b]]);
+      if (!fits(union)) {
+        failed.add(key);
+        continue;
+      }
+      for (const f of members[b]) label[f] = a;
+      members[a] = Array.from(union);
+      members[b] = [];
+      touched[a] = touched[b] = 1;
+      merged = true;
+    }
   }
-  const newId = new Int32Array(chartCount).fill(-1);
-  let next = 0;
+  const out: Int32Array[] = [];
+  const seen = new Uint8Array(chartCount);
   for (let f = 0; f < g.faceCount; f++) {
-    const r = root(chartOf[f]);
-    if (newId[r] < 0) newId[r] = next++;
-    chartOf[f] = newId[r];
+    const c = label[f];
+    if (!seen[c]) {
+      seen[c] = 1;
+      out.push(Int32Array.from(members[c]));
+    }
   }
+  return out;
 }
+
