@@ -4,7 +4,7 @@
  * triangle mesh. Reported: time, piece/chart count and the worst per-triangle stretch of each, measured the same
  * way with our triangleStretch (Sander et al. 2001). The peer's chart coordinates are in texels, so each of its
  * charts is first scaled to the chart's own 3D area (the kindest uniform scale for it). Goal: every one of our
- * pieces within the 3 % budget, in less time than the peer.
+ * pieces within the 3 % budget, in less time than the peer (each side timed on its second, warm run).
  */
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
@@ -37,7 +37,9 @@ function bunnyMesh(): TriMesh {
 }
 
 interface AtlasResult {
+  /** Second run (warm); `coldMs` the first. */
   ms: number;
+  coldMs: number;
   charts: number;
   maxPct: number;
 }
@@ -58,13 +60,18 @@ async function peerAtlas(mesh: TriMesh): Promise<AtlasResult> {
       (p) => join(dist, p),
     );
   });
-  const t0 = performance.now();
-  api.createAtlas();
-  api.addMesh(Uint16Array.from(mesh.triangles), Float32Array.from(mesh.positions));
-  const atlas = api.generateAtlas({}, {}, true);
-  const ms = performance.now() - t0;
+  const once = (): { ms: number; atlas: ReturnType<PeerApi['generateAtlas']> } => {
+    const t0 = performance.now();
+    api.createAtlas();
+    api.addMesh(Uint16Array.from(mesh.triangles), Float32Array.from(mesh.positions));
+    const atlas = api.generateAtlas({}, {}, true);
+    const ms = performance.now() - t0;
+    api.destroyAtlas();
+    return { ms, atlas };
+  };
+  const cold = once();
+  const { ms, atlas } = once();
   const out = atlas.meshes[0];
-  api.destroyAtlas();
 
   // Charts are the connected parts of the output mesh (the peer splits vertices along chart boundaries).
   const index = out.index;
@@ -110,7 +117,7 @@ async function peerAtlas(mesh: TriMesh): Promise<AtlasResult> {
     for (let i = 0; i < uv.length; i++) uv[i] *= k;
     maxPct = Math.max(maxPct, triangleStretch(positions, triangles, uv).summary.maxPct);
   }
-  return { ms, charts: chartOf.size, maxPct };
+  return { ms, coldMs: cold.ms, charts: chartOf.size, maxPct };
 }
 
 interface PeerApi {
@@ -128,9 +135,14 @@ export async function run(): Promise<BenchRow[]> {
   const mesh = bunnyMesh();
   const F = mesh.triangles.length / 3;
   const twin = buildTwins(mesh.triangles, mesh.positions.length / 3);
+  // Each side runs twice and the second (warm) run is timed, so neither pays for compiling its code: the JIT
+  // for ours, WebAssembly instantiation and first-call costs for the peer. Both first runs are reported too.
   const t0 = performance.now();
+  autoSeams(mesh, twin, { stretchBudgetPct: BUDGET_PCT });
+  const oursColdMs = performance.now() - t0;
+  const t1 = performance.now();
   const mask = autoSeams(mesh, twin, { stretchBudgetPct: BUDGET_PCT });
-  const oursMs = performance.now() - t0;
+  const oursMs = performance.now() - t1;
   const pieces = splitPieces(mesh, twin, mask);
   const ourMax = Math.max(...pieces.map((p) => flattenPiece({ positions: p.positions, triangles: p.triangles }).stretch.maxPct));
   const peer = await peerAtlas(mesh);
@@ -138,14 +150,14 @@ export async function run(): Promise<BenchRow[]> {
     {
       group: 'auto seams',
       name: `bunny (${F} triangles): ours, time / pieces / max stretch`,
-      value: `${(oursMs / 1000).toFixed(2)} s / ${pieces.length} / ${ourMax.toFixed(2)} %`,
+      value: `${(oursMs / 1000).toFixed(2)} s (first run ${(oursColdMs / 1000).toFixed(2)}) / ${pieces.length} / ${ourMax.toFixed(2)} %`,
       target: `every piece ≤ ${BUDGET_PCT} %, faster than the peer`,
       ok: ourMax <= BUDGET_PCT && oursMs < peer.ms,
     },
     {
       group: 'auto seams',
       name: 'bunny: peer xatlasjs, time / charts / max stretch',
-      value: `${(peer.ms / 1000).toFixed(2)} s / ${peer.charts} / ${peer.maxPct.toFixed(2)} %`,
+      value: `${(peer.ms / 1000).toFixed(2)} s (first run ${(peer.coldMs / 1000).toFixed(2)}) / ${peer.charts} / ${peer.maxPct.toFixed(2)} %`,
       target: 'report',
       ok: true,
     },

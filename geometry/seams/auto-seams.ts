@@ -23,7 +23,7 @@ export interface AutoSeamOptions {
   stretchBudgetPct?: number;
   /** Stop splitting once this many pieces exist (the pieces left over budget are then reported by the caller). */
   maxPieces?: number;
-  /** ARAP rounds of the quick trial flattenings while charts are split and merged (default 10). */
+  /** ARAP rounds of the quick trial flattenings while charts are split and merged (default 5). */
   trialArapIterations?: number;
 }
 
@@ -32,7 +32,9 @@ const CREASE_WEIGHT = 12;
 /** How strongly a face whose normal departs from the seed's normal resists joining the seed's chart. */
 const PROXY_WEIGHT = 2;
 /** ARAP rounds of a trial flattening: enough to rank charts; the final check uses flattenPiece's default. */
-const TRIAL_ARAP_ITERATIONS = 10;
+const TRIAL_ARAP_ITERATIONS = 5;
+/** A merge whose expected stretch exceeds this many budgets is skipped without a trial flattening. */
+const MERGE_SKIP_FACTOR = 2;
 
 /**
  * Seams that cut the mesh into pieces within the stretch budget.
@@ -56,17 +58,17 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
   const F = graph.faceCount;
   const trialIterations = options.trialArapIterations ?? TRIAL_ARAP_ITERATIONS;
   const possible = (faces: ArrayLike<number>): boolean => isoperimetricallyPossible(graph, faces, budget);
-  const fitsTrial = (faces: Int32Array): boolean =>
-    possible(faces) && chartStretchPct(mesh, faces, trialIterations) <= budget;
-  const fitsFinal = (faces: Int32Array): boolean => possible(faces) && chartStretchPct(mesh, faces) <= budget;
+  const trialStretch = (faces: Int32Array): number =>
+    possible(faces) ? chartStretchPct(mesh, faces, trialIterations) : Infinity;
+  const finalStretch = (faces: Int32Array): number => (possible(faces) ? chartStretchPct(mesh, faces) : Infinity);
 
   // Connected parts first: each is a chart to start from. Split until the trial flattening fits, merge back,
   // then hold every chart to the real flattening and split again where it does not fit.
-  let charts = splitUntilFit(graph, components(graph), fitsTrial, maxPieces);
+  const split = splitUntilFit(graph, components(graph), trialStretch, budget, maxPieces);
   const chartOf = new Int32Array(F).fill(-1);
-  charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
-  const merged = mergeCharts(graph, chartOf, charts.length, fitsTrial);
-  charts = splitUntilFit(graph, merged, fitsFinal, maxPieces, true);
+  split.charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
+  const merged = mergeCharts(graph, chartOf, split.stretches, trialStretch, budget);
+  const { charts } = splitUntilFit(graph, merged, finalStretch, budget, maxPieces, true);
   charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
 
   const mask = new Uint8Array(3 * F);
@@ -78,29 +80,55 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
 }
 
 /**
- * Splits charts in two until each fits (or the piece cap is reached). With `keepOrder`, charts are checked in the
- * given order and those that fit keep their place, so a final check changes as little as possible.
+ * Splits charts in two until each fits (or the piece cap is reached). `stretchOf` returns a chart's max stretch in
+ * percent (Infinity when it cannot fit at all). A chart far over budget is split again without flattening its
+ * halves first: stretch from curvature grows about in proportion to a chart's area (a spherical cap's distortion
+ * grows with the square of its radius), so a half whose expected stretch — the parent's times the area ratio — is
+ * still over twice the budget is split straight away. With `keepOrder`, charts are checked in the given order and
+ * those that fit keep their place, so a final check changes as little as possible.
  */
 function splitUntilFit(
   graph: FaceGraph,
   start: Int32Array[],
-  fits: (faces: Int32Array) => boolean,
+  stretchOf: (faces: Int32Array) => number,
+  budget: number,
   maxPieces: number,
   keepOrder = false,
-): Int32Array[] {
-  const pending = keepOrder ? start.slice().reverse() : start.slice();
+): { charts: Int32Array[]; stretches: number[] } {
+  const areaOf = (faces: Int32Array): number => {
+    let a = 0;
+    for (const f of faces) a += graph.areas[f];
+    return a;
+  };
+  const pending: Array<{ faces: Int32Array; expected: number | null }> = (keepOrder ? start.slice().reverse() : start).map(
+    (faces) => ({ faces, expected: null }),
+  );
   const accepted: Int32Array[] = [];
+  const stretches: number[] = [];
   while (pending.length > 0) {
-    const chart = pending.pop()!;
+    const { faces, expected } = pending.pop()!;
     const room = accepted.length + pending.length + 1 < maxPieces;
-    if (chart.length === 1 || !room || (!isClosed(graph, chart) && fits(chart))) {
-      accepted.push(chart);
+    if (faces.length === 1 || !room) {
+      accepted.push(faces);
+      stretches.push(faces.length === 1 ? 0 : Infinity);
       continue;
     }
-    const [a, b] = splitChart(graph, chart);
-    pending.push(b, a);
+    let stretch: number | null = null;
+    if (!isClosed(graph, faces) && !(expected !== null && expected > 2 * budget)) {
+      stretch = stretchOf(faces);
+      if (stretch <= budget) {
+        accepted.push(faces);
+        stretches.push(stretch);
+        continue;
+      }
+    }
+    const known = stretch !== null && Number.isFinite(stretch) ? stretch : expected;
+    const total = areaOf(faces);
+    const halves = splitChart(graph, faces);
+    const guess = (half: Int32Array): number | null => (known === null || total <= 0 ? null : (known * areaOf(half)) / total);
+    pending.push({ faces: halves[1], expected: guess(halves[1]) }, { faces: halves[0], expected: guess(halves[0]) });
   }
-  return accepted;
+  return { charts: accepted, stretches };
 }
 
 /**
@@ -111,8 +139,7 @@ function splitUntilFit(
  * sphere or a closed-up region fails this long before a flattening would be worth its cost.
  */
 function isoperimetricallyPossible(g: FaceGraph, faces: ArrayLike<number>, budget: number): boolean {
-  const inChart = new Set<number>();
-  for (let i = 0; i < faces.length; i++) inChart.add(faces[i]);
+  enterChart(g, faces);
   let area = 0;
   let boundary = 0;
   for (let i = 0; i < faces.length; i++) {
@@ -120,7 +147,7 @@ function isoperimetricallyPossible(g: FaceGraph, faces: ArrayLike<number>, budge
     area += g.areas[f];
     for (let k = 0; k < 3; k++) {
       const t = g.twin[3 * f + k];
-      if (t < 0 || !inChart.has((t / 3) | 0)) boundary += g.edgeLengths[3 * f + k];
+      if (t < 0 || !inCurrentChart(g, (t / 3) | 0)) boundary += g.edgeLengths[3 * f + k];
     }
   }
   const e = budget / 100;
@@ -135,7 +162,25 @@ interface FaceGraph {
   areas: Float64Array;
   /** Length of each half-edge's edge, mm. */
   edgeLengths: Float64Array;
+  /**
+   * Scratch: position of each face in the chart being examined, valid where `stampOf[f] === stamp`. Replaces a
+   * Set/Map per chart (the searches run hundreds of times on small charts).
+   */
+  localIndex: Int32Array;
+  stampOf: Int32Array;
+  stamp: number;
 }
+
+/** Marks `faces` as the current chart in the graph's scratch arrays (see FaceGraph.localIndex). */
+function enterChart(g: FaceGraph, faces: ArrayLike<number>): void {
+  g.stamp++;
+  for (let i = 0; i < faces.length; i++) {
+    g.stampOf[faces[i]] = g.stamp;
+    g.localIndex[faces[i]] = i;
+  }
+}
+
+const inCurrentChart = (g: FaceGraph, f: number): boolean => g.stampOf[f] === g.stamp;
 
 function faceGraph(mesh: TriMesh, twin: Int32Array): FaceGraph {
   const { positions: p, triangles: t } = mesh;
@@ -164,7 +209,17 @@ function faceGraph(mesh: TriMesh, twin: Int32Array): FaceGraph {
     normals[3 * f + 2] = nz / len;
     for (let k = 0; k < 3; k++) centroids[3 * f + k] = (p[a + k] + p[b + k] + p[c + k]) / 3;
   }
-  return { faceCount: F, twin, normals, centroids, areas, edgeLengths };
+  return {
+    faceCount: F,
+    twin,
+    normals,
+    centroids,
+    areas,
+    edgeLengths,
+    localIndex: new Int32Array(F),
+    stampOf: new Int32Array(F),
+    stamp: 0,
+  };
 }
 
 const dot = (n: Float64Array, f: number, g: number): number =>
@@ -200,11 +255,11 @@ function components(g: FaceGraph): Int32Array[] {
 }
 
 function isClosed(g: FaceGraph, faces: Int32Array): boolean {
-  const inChart = new Set(faces);
+  enterChart(g, faces);
   for (const f of faces) {
     for (let k = 0; k < 3; k++) {
       const t = g.twin[3 * f + k];
-      if (t < 0 || !inChart.has((t / 3) | 0)) return false;
+      if (t < 0 || !inCurrentChart(g, (t / 3) | 0)) return false;
     }
   }
   return true;
@@ -215,14 +270,13 @@ function isClosed(g: FaceGraph, faces: Int32Array): boolean {
  * distance and the seed it was reached from. `proxy` adds the planar-proxy and crease terms.
  */
 function growFrom(g: FaceGraph, faces: Int32Array, seeds: number[], proxy: boolean): { dist: Float64Array; label: Int32Array } {
-  const local = new Map<number, number>();
-  faces.forEach((f, i) => local.set(f, i));
+  enterChart(g, faces);
   const n = faces.length;
   const dist = new Float64Array(n).fill(Infinity);
   const label = new Int32Array(n).fill(-1);
   const heap = new MinHeap(n);
   seeds.forEach((s, k) => {
-    const i = local.get(s)!;
+    const i = g.localIndex[s];
     dist[i] = 0;
     label[i] = k;
     heap.push(i, 0);
@@ -238,8 +292,9 @@ function growFrom(g: FaceGraph, faces: Int32Array, seeds: number[], proxy: boole
       const t = g.twin[3 * f + k];
       if (t < 0) continue;
       const nf = (t / 3) | 0;
-      const j = local.get(nf);
-      if (j === undefined || done[j]) continue;
+      if (!inCurrentChart(g, nf)) continue;
+      const j = g.localIndex[nf];
+      if (done[j]) continue;
       let w = centroidDistance(g, f, nf);
       if (proxy) {
         w *= 1 + CREASE_WEIGHT * (1 - dot(g.normals, f, nf)) + PROXY_WEIGHT * (1 - dot(g.normals, seed, nf));
@@ -308,7 +363,17 @@ function chartStretchPct(mesh: TriMesh, faces: Int32Array, arapIterations?: numb
  * not tried again until one of the two has grown. Rounds repeat until none merges. Returns the merged charts
  * in order of their smallest face.
  */
-function mergeCharts(g: FaceGraph, chartOf: Int32Array, chartCount: number, fits: (faces: Int32Array) => boolean): Int32Array[] {
+function mergeCharts(
+  g: FaceGraph,
+  chartOf: Int32Array,
+  initialStretch: number[],
+  stretchOf: (faces: Int32Array) => number,
+  budget: number,
+): Int32Array[] {
+  const chartCount = initialStretch.length;
+  const stretch = initialStretch.slice();
+  const area = new Float64Array(chartCount);
+  for (let f = 0; f < g.faceCount; f++) area[chartOf[f]] += g.areas[f];
   const members: number[][] = Array.from({ length: chartCount }, () => []);
   for (let f = 0; f < g.faceCount; f++) members[chartOf[f]].push(f);
   const label = Int32Array.from(chartOf);
@@ -332,11 +397,22 @@ function mergeCharts(g: FaceGraph, chartOf: Int32Array, chartCount: number, fits
     const touched = new Uint8Array(chartCount);
     for (const [key, [a, b]] of order) {
       if (touched[a] || touched[b] || failed.has(key)) continue;
-      const union = Int32Array.from([...members[a], ...members[b]]);
-      if (!fits(union)) {
+      // Expected stretch of the union: each part's stretch grown with the area it would become (see
+      // splitUntilFit); a union expected well over budget is not worth a trial flattening.
+      const unionArea = area[a] + area[b];
+      const expected = Math.max(stretch[a] * (unionArea / area[a]), stretch[b] * (unionArea / area[b]));
+      if (expected > MERGE_SKIP_FACTOR * budget) {
         failed.add(key);
         continue;
       }
+      const union = Int32Array.from([...members[a], ...members[b]]);
+      const unionStretch = stretchOf(union);
+      if (!(unionStretch <= budget)) {
+        failed.add(key);
+        continue;
+      }
+      stretch[a] = unionStretch;
+      area[a] = unionArea;
       for (const f of members[b]) label[f] = a;
       members[a] = Array.from(union);
       members[b] = [];
