@@ -51,7 +51,7 @@ export { scoreLines, SCORE_LINE_MIN_FOLD_DEG } from './thickness/score-lines';
 
 // The pattern pipeline and its document.
 export type * from './pattern/pattern-doc';
-export { preparePieces, DEFAULT_CREASE_DEG, type PreparedPieces, type PrepareOptions, type SeamSource } from './pattern/prepare-pieces';
+export { preparePieces, type PreparedPieces, type PrepareOptions, type SeamSource } from './pattern/prepare-pieces';
 export {
   buildPattern,
   patternFromPieces,

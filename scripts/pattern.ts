@@ -5,9 +5,10 @@
  *     [--thickness <mm>] [--surface outer|mid|inner] [--stretch-budget <pct>] [--page a4|letter|a3|tabloid]
  *     [--format json,pdf,svg,dxf]
  *
- * Default seams: the file's `l` polylines when it has any, otherwise every edge whose angle departs from flat by
- * 30° or more (crease:30) — the corners of a hard-surface sculpt — and any part still closed after that is opened
- * with automatic seams (the document's warnings say so). pattern.json is always written; pdf/svg/dxf come from
+ * Default seams: the file's `l` polylines when it has any (the maker marked them), otherwise automatic seams
+ * from the stretch budget (`auto`), which also follow sharp creases, so a hard-surface sculpt is cut at its
+ * corners and a smooth one into pieces that lie flat. `crease:<deg>` must be asked for; with it (or with `obj`),
+ * any part left closed is opened with automatic seams and the document's warnings say so. pattern.json is always written; pdf/svg/dxf come from
  * the print-set writer. On bad input the command prints one line on stderr (what is wrong, and the file line for
  * text formats) and exits 2 for a usage mistake, 1 for a problem with the model.
  */

@@ -20,7 +20,7 @@ import { preparePieces, type PreparedPieces, type SeamSource } from './prepare-p
 import { seamSides } from './seam-sides';
 
 export interface BuildPatternOptions {
-  /** Seam source (default: the file's `l` lines when it has any, else crease at 30°). */
+  /** Seam source (default: the file's `l` lines when it has any, else automatic seams from the budget). */
   seams?: SeamSource;
   /** Foam thickness, mm (default 6, a common mid-weight sheet — common practice). */
   thickness?: number;

@@ -42,14 +42,12 @@ export interface PreparedPieces {
   warnings: string[];
 }
 
-/** Default crease angle when a file carries no seam lines, degrees from flat (see scripts/pattern.ts). */
-export const DEFAULT_CREASE_DEG = 30;
-
 /**
  * Cleans the model, finds its seams and splits it into pieces.
  *
  * @param model an imported model, mm.
- * @param options seam source (default: 'obj' when the file has `l` polylines, else crease at 30°) and budget.
+ * @param options seam source (default: 'obj' when the file has `l` polylines, else 'auto' from the budget) and
+ *   budget.
  * @returns the prepared pieces. Any piece the seams leave closed (a shell with no boundary cannot lie flat) is
  *   opened with automatic seams inside it, and a warning says so.
  * @throws GeometryError BAD_OPTION for a crease angle outside (0, 180) or a bad budget; NO_FACES when cleaning
@@ -60,7 +58,7 @@ export function preparePieces(model: ImportedModel, options: PrepareOptions = {}
   if (!(budget > 0) || !Number.isFinite(budget)) {
     throw new GeometryError('BAD_OPTION', `stretch budget must be a positive percentage, got ${budget}`);
   }
-  const source: SeamSource = options.seams ?? (model.seamPolylines.length > 0 ? 'obj' : { crease: DEFAULT_CREASE_DEG });
+  const source: SeamSource = options.seams ?? (model.seamPolylines.length > 0 ? 'obj' : 'auto');
   if (typeof source === 'object' && !(source.crease > 0 && source.crease < 180)) {
     throw new GeometryError('BAD_OPTION', `crease angle must be between 0 and 180 degrees, got ${source.crease}`);
   }

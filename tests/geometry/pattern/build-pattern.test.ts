@@ -115,7 +115,7 @@ describe('buildPattern: developable and doubly curved surfaces', () => {
   it('flattens a sphere gore to length πR and equator width 2πR/N with non-zero stretch', () => {
     const R = 100;
     for (const N of [6, 12]) {
-      const doc = buildPattern(modelOf(sphereGore(R, N, 48, 8)), { stretchBudgetPct: 100 });
+      const doc = buildPattern(modelOf(sphereGore(R, N, 48, 8)), { seams: 'obj', stretchBudgetPct: 100 });
       const piece = doc.pieces[0];
       // Sinusoidal projection gores (Snyder, Map Projections — A Working Manual, USGS PP 1395): length πR,
       // equator width 2πR/N. A least-stretch flattening may spread the stretch, so each length holds to within
@@ -127,8 +127,8 @@ describe('buildPattern: developable and doubly curved surfaces', () => {
       // A doubly curved gore cannot be developed (Gauss's Theorema Egregium): stretch is not zero.
       expect(piece.stretch.maxPct).toBeGreaterThan(0.1);
     }
-    const wide = buildPattern(modelOf(sphereGore(R, 6, 48, 8)), { stretchBudgetPct: 100 }).pieces[0].stretch.maxPct;
-    const narrow = buildPattern(modelOf(sphereGore(R, 12, 48, 8)), { stretchBudgetPct: 100 }).pieces[0].stretch.maxPct;
+    const wide = buildPattern(modelOf(sphereGore(R, 6, 48, 8)), { seams: 'obj', stretchBudgetPct: 100 }).pieces[0].stretch.maxPct;
+    const narrow = buildPattern(modelOf(sphereGore(R, 12, 48, 8)), { seams: 'obj', stretchBudgetPct: 100 }).pieces[0].stretch.maxPct;
     // More gores, each narrower, stretch less (Snyder: the sinusoidal gore's distortion grows with its width).
     expect(narrow).toBeLessThan(wide);
   });
@@ -210,7 +210,7 @@ describe('buildPattern: stations, score lines, grouping, darts, closed shells', 
     };
     const rect = fanPlate([[0, 0], [60, 0], [60, 20], [0, 20]]);
     const mesh = joinMeshes([plate, moved(plate, 1.1, 200, false), moved(plate, -0.4, 400, true), moved(rect, 0, 600, false)]);
-    const doc = buildPattern(modelOf(mesh));
+    const doc = buildPattern(modelOf(mesh), { seams: 'obj' });
     expect(doc.pieces.map((p) => [p.label, p.quantity, p.mirrored])).toEqual([
       ['A', 3, true],
       ['B', 1, false],
@@ -230,7 +230,7 @@ describe('buildPattern: stations, score lines, grouping, darts, closed shells', 
       if (z / 3 > 30) keep.push(f);
     }
     const triangles = Uint32Array.from(keep.flatMap((f) => [0, 1, 2].map((k) => sphere.triangles[3 * f + k])));
-    const doc = buildPattern(modelOf({ positions: sphere.positions, triangles }), { stretchBudgetPct: 1 });
+    const doc = buildPattern(modelOf({ positions: sphere.positions, triangles }), { seams: 'obj', stretchBudgetPct: 1 });
     const piece = doc.pieces[0];
     expect(piece.stretch.maxPct).toBeGreaterThan(1);
     expect(doc.warnings.some((w) => w.startsWith('piece A stretches up to'))).toBe(true);
@@ -243,12 +243,20 @@ describe('buildPattern: stations, score lines, grouping, darts, closed shells', 
   });
 
   it('opens a closed shell with automatic seams and keeps every piece within the budget', () => {
-    const doc = buildPattern(modelOf(icoSphere(80, 2)));
+    const doc = buildPattern(modelOf(icoSphere(80, 2)), { seams: { crease: 30 } });
     expect(doc.warnings.some((w) => w.includes('closed shell'))).toBe(true);
     expect(doc.pieces.length).toBeGreaterThan(1);
     for (const p of doc.pieces) expect(p.stretch.maxPct).toBeLessThanOrEqual(3);
     // Descartes: total area is kept piece by piece; each seam has two sides of equal 2D length within budget.
     for (const s of doc.seams) for (const l of s.lengths) expect(Math.abs(l - s.length3d) / s.length3d).toBeLessThan(0.03);
+  });
+
+  it('cuts a model without seam lines automatically within the budget by default', () => {
+    // No `l` lines and no seam option: automatic seams (scripts/pattern.ts documents this default).
+    const doc = buildPattern(modelOf(icoSphere(80, 2)));
+    expect(doc.pieces.length).toBeGreaterThan(1);
+    expect(doc.warnings.some((w) => w.includes('closed shell'))).toBe(false);
+    for (const p of doc.pieces) expect(p.stretch.maxPct).toBeLessThanOrEqual(3);
   });
 
   it('carries the shop cautions and rejects bad options by name', () => {
