@@ -259,6 +259,21 @@ describe('buildPattern: stations, score lines, grouping, darts, closed shells', 
     for (const p of doc.pieces) expect(p.stretch.maxPct).toBeLessThanOrEqual(3);
   });
 
+  it('warns about a non-manifold edge it repaired and about a seam line that is not a mesh edge', () => {
+    // Three triangles on one edge (0–1): a non-manifold edge, which cleaning separates and reports.
+    const fin: TriMesh = {
+      positions: Float64Array.from([0, 0, 0, 10, 0, 0, 5, 8, 0, 5, -8, 0, 5, 0, 8]),
+      triangles: Uint32Array.from([0, 1, 2, 1, 0, 3, 0, 1, 4]),
+    };
+    const doc = buildPattern(modelOf(fin), { seams: 'obj' });
+    expect(doc.warnings.some((w) => w.startsWith('non-manifold edge'))).toBe(true);
+    // A seam line from one corner of a square plate to the opposite one, which is not an edge of its fan: the
+    // seam follows the shortest edge path instead, and the maker is told.
+    const plate = fanPlate([[0, 0], [40, 0], [40, 40], [20, 50], [0, 40]]);
+    const cut = buildPattern(modelOf(plate, [[1, 3]]), { seams: 'obj' });
+    expect(cut.warnings.some((w) => w.startsWith('seam line 1:'))).toBe(true);
+  });
+
   it('carries the shop cautions and rejects bad options by name', () => {
     const doc = buildPattern(modelOf(platonicSolid('cube', 10)));
     expect(doc.cautions!.some((c) => c.includes("safety data sheet"))).toBe(true);
