@@ -5,7 +5,7 @@
  */
 import { flattenPiece, type FlatPiece } from '../flatten/flatten-piece';
 import { isGeometryError } from '../errors';
-import { buildTwins } from '../mesh/half-edges';
+import { buildTwins, nextHalfEdge as next } from '../mesh/half-edges';
 import type { TriMesh } from '../mesh/tri-mesh';
 import type { DartSuggestion, PointMm } from '../pattern/pattern-doc';
 import { MinHeap } from '../pattern/min-heap';
@@ -127,4 +127,3 @@ function dartTo(
   return { path: path2d, stretchAfterPct };
 }
 
-const next = (h: number): number => h - (h % 3) + ((h % 3) + 1) % 3;

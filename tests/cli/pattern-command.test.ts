@@ -3,6 +3,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from 'no
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
+import DxfParser from 'dxf-parser';
 import type { TriMesh } from '../../geometry/mesh/tri-mesh';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import { cylinder, platonicSolid } from '../../geometry/shapes';
@@ -97,6 +98,24 @@ describe('the pattern command', () => {
     expect(doc.seams[0].length3d).toBeCloseTo(50, 3);
     expect(doc.seams[0].dihedral.mean).toBeCloseTo(90, 3);
     expect(doc.pieces[0].quantity).toBe(6);
+  });
+
+  it('hands pdf/svg/dxf to the print-set writer and lists what it wrote', () => {
+    const seg = 32;
+    const model = join(work, 'band.obj');
+    writeFileSync(model, objText(cylinder(30, 40, seg, 2), [[0, seg, 2 * seg]]));
+    const out = join(work, 'band-out');
+    const r = runPattern([model, '--out', out, '--format', 'json,svg,dxf', '--page', 'letter']);
+    expect(r.status).toBe(0);
+    const written = r.stdout.split('\n').filter((l) => l.startsWith('wrote ')).map((l) => l.slice(6));
+    expect(written).toContain(join(out, 'pattern.json'));
+    const dxf = written.find((f) => f.endsWith('.dxf'));
+    const svg = written.find((f) => f.endsWith('.svg'));
+    expect(dxf && svg).toBeTruthy();
+    // DXF header variable $INSUNITS = 4 means millimetres (DXF reference, HEADER section): the pattern is 1:1 in mm.
+    const parsed = new DxfParser().parseSync(readFileSync(dxf!, 'utf8')) as { header: Record<string, unknown> };
+    expect(parsed.header.$INSUNITS).toBe(4);
+    expect(readFileSync(svg!, 'utf8')).toMatch(/^<\?xml|<svg/);
   });
 
   it('fails on a missing file with one line', () => {
