@@ -75,7 +75,7 @@ export function preparePieces(model: ImportedModel, options: PrepareOptions = {}
 
   let seamMask: Uint8Array;
   if (source === 'auto') {
-    seamMask = autoSeams(mesh, twin, { stretchBudgetPct: budget });
+    seamMask = autoSeams(mesh, twin, { stretchBudgetPct: budget, symmetric: true });
   } else if (source === 'obj') {
     if (clean.seamPolylines.length === 0) {
       warnings.push("the file has no seam lines ('l' polylines); pieces follow the model's open edges only");

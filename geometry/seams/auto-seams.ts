@@ -8,7 +8,8 @@
  * they are least visible), then verify each chart by really flattening it (LSCM then ARAP) and measuring its
  * stretch. Sheetsmith's own schedule: every connected part starts as one chart; a chart over budget (or one
  * that cannot be flattened, such as a closed shell) is split in two by growing from its two geodesically
- * farthest faces; this repeats until every chart fits. Then neighbouring charts are merged back wherever the
+ * farthest faces; this repeats until every chart fits. A mirror-symmetric model is cut on one side of its
+ * symmetry plane and the charts are mirrored onto the other side, so its pieces come in mirror pairs. Then neighbouring charts are merged back wherever the
  * merged chart still fits, longest shared seam first, which removes the needless cuts bisection leaves. Trial
  * flattenings use few ARAP rounds and a chart that cannot fit by the isoperimetric inequality is never flattened
  * at all; the final charts are checked with the full flattening and split again if they do not fit.
@@ -17,6 +18,7 @@ import { flattenPiece } from '../flatten/flatten-piece';
 import { GeometryError, isGeometryError } from '../errors';
 import type { TriMesh } from '../mesh/tri-mesh';
 import { MinHeap } from '../pattern/min-heap';
+import { findSymmetryPlane, type SymmetryPlane } from './mirror-seams';
 
 export interface AutoSeamOptions {
   /** Max stretch allowed per piece, percent (default 3). */
@@ -25,6 +27,12 @@ export interface AutoSeamOptions {
   maxPieces?: number;
   /** ARAP rounds of the quick trial flattenings while charts are split and merged (default 5). */
   trialArapIterations?: number;
+  /**
+   * When the model is mirror-symmetric (findSymmetryPlane), cut one half and mirror its pieces onto the other,
+   * with a seam along the plane, so the pieces come in mirror pairs (one template, cut twice). Default false
+   * (finding the plane costs about as much as cutting a small model); the pattern pipeline turns it on.
+   */
+  symmetric?: boolean;
 }
 
 /** How strongly a sharp edge resists being crossed by a growing chart (dimensionless, tuned on the test shapes). */
@@ -35,6 +43,8 @@ const PROXY_WEIGHT = 2;
 const TRIAL_ARAP_ITERATIONS = 5;
 /** A merge whose expected stretch exceeds this many budgets is skipped without a trial flattening. */
 const MERGE_SKIP_FACTOR = 2;
+/** Share of the budget the cut half of a symmetric model is held to (see autoSeams). */
+const MIRROR_MARGIN = 0.98;
 
 /**
  * Seams that cut the mesh into pieces within the stretch budget.
@@ -63,12 +73,39 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
   const finalStretch = (faces: Int32Array): number => (possible(faces) ? chartStretchPct(mesh, faces) : Infinity);
 
   // Connected parts first: each is a chart to start from. Split until the trial flattening fits, merge back,
-  // then hold every chart to the real flattening and split again where it does not fit.
-  const split = splitUntilFit(graph, components(graph), trialStretch, budget, maxPieces);
+  // then hold every chart to the real flattening and split again where it does not fit. On a symmetric model
+  // only one half is cut this way and its charts are mirrored onto the other half before the final check.
+  const plane = options.symmetric ? findSymmetryPlane(mesh) : null;
+  const mirror = plane ? mirrorFaces(graph, plane) : null;
   const chartOf = new Int32Array(F).fill(-1);
+  const start = mirror ? components(graph, mirror.inHalf) : components(graph);
+  const split = splitUntilFit(graph, start, trialStretch, budget, maxPieces);
   split.charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
-  const merged = mergeCharts(graph, chartOf, split.stretches, trialStretch, budget);
-  const { charts } = splitUntilFit(graph, merged, finalStretch, budget, maxPieces, true);
+  const merged = mergeCharts(graph, chartOf, split.stretches, trialStretch, budget, mirror?.inHalf);
+  let charts: Int32Array[];
+  if (!mirror) {
+    charts = splitUntilFit(graph, merged, finalStretch, budget, maxPieces, true).charts;
+  } else {
+    // The half is held to a slightly tighter budget so the mirrored copies, whose flattening differs from the
+    // originals only by rounding, pass the real one too; any copy that still fails is split on its own.
+    const half = splitUntilFit(graph, merged, finalStretch, budget * MIRROR_MARGIN, maxPieces, true).charts;
+    half.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
+    for (let f = 0; f < F; f++) if (!mirror.inHalf[f]) chartOf[f] = half.length + chartOf[mirror.image[f]];
+    // A face whose mirror partner was matched only approximately can land in the neighbouring chart; it is
+    // handed back so every copy is one piece.
+    defragment(graph, chartOf, mirror.inHalf);
+    const copies: number[][] = Array.from({ length: half.length }, () => []);
+    for (let f = 0; f < F; f++) if (!mirror.inHalf[f]) copies[chartOf[f] - half.length].push(f);
+    const checked = splitUntilFit(
+      graph,
+      copies.filter((c) => c.length > 0).map((c) => Int32Array.from(c)),
+      finalStretch,
+      budget,
+      maxPieces,
+      true,
+    ).charts;
+    charts = half.concat(checked);
+  }
   charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
 
   const mask = new Uint8Array(3 * F);
@@ -129,6 +166,136 @@ function splitUntilFit(
     pending.push({ faces: halves[1], expected: guess(halves[1]) }, { faces: halves[0], expected: guess(halves[0]) });
   }
   return { charts: accepted, stretches };
+}
+
+/**
+ * The half of a mirror-symmetric mesh on the positive side of `plane` (by face centroid) and, for each face of
+ * the other half, the face of the first half it mirrors onto (nearest mirrored centroid, through a uniform grid).
+ * Null unless the pairing is one to one — that is, unless the triangulation itself is mirror-symmetric with a
+ * loop of edges in the plane, as a sculpt modelled with a mirror is; otherwise the mirrored pieces' edges would
+ * zigzag differently from the originals, and the caller cuts the whole model instead.
+ */
+function mirrorFaces(g: FaceGraph, plane: SymmetryPlane): { inHalf: Uint8Array; image: Int32Array } | null {
+  const F = g.faceCount;
+  const [nx, ny, nz] = plane.normal;
+  const c = g.centroids;
+  const side = (f: number): number => c[3 * f] * nx + c[3 * f + 1] * ny + c[3 * f + 2] * nz - plane.offset;
+  const inHalf = new Uint8Array(F);
+  let meanEdge = 0;
+  for (let f = 0; f < F; f++) {
+    if (side(f) >= 0) inHalf[f] = 1;
+    meanEdge += g.edgeLengths[3 * f] + g.edgeLengths[3 * f + 1] + g.edgeLengths[3 * f + 2];
+  }
+  meanEdge /= 3 * F;
+  const cell = meanEdge > 0 ? meanEdge : 1;
+  const key = (x: number, y: number, z: number): string => `${Math.floor(x / cell)},${Math.floor(y / cell)},${Math.floor(z / cell)}`;
+  const grid = new Map<string, number[]>();
+  for (let f = 0; f < F; f++) {
+    if (!inHalf[f]) continue;
+    const k = key(c[3 * f], c[3 * f + 1], c[3 * f + 2]);
+    const list = grid.get(k);
+    if (list) list.push(f);
+    else grid.set(k, [f]);
+  }
+  const image = new Int32Array(F).fill(-1);
+  const used = new Uint8Array(F);
+  const limit = meanEdge / 2;
+  for (let f = 0; f < F; f++) {
+    if (inHalf[f]) continue;
+    const d = 2 * side(f);
+    const x = c[3 * f] - d * nx, y = c[3 * f + 1] - d * ny, z = c[3 * f + 2] - d * nz;
+    let best = -1;
+    let bestDist = limit;
+    const ix = Math.floor(x / cell), iy = Math.floor(y / cell), iz = Math.floor(z / cell);
+    for (let a = -1; a <= 1; a++) {
+      for (let b = -1; b <= 1; b++) {
+        for (let e = -1; e <= 1; e++) {
+          for (const h of grid.get(`${ix + a},${iy + b},${iz + e}`) ?? []) {
+            const dist = Math.hypot(c[3 * h] - x, c[3 * h + 1] - y, c[3 * h + 2] - z);
+            if (dist < bestDist) {
+              bestDist = dist;
+              best = h;
+            }
+          }
+        }
+      }
+    }
+    if (best < 0 || used[best]) return null;
+    used[best] = 1;
+    image[f] = best;
+  }
+  for (let f = 0; f < F; f++) if (inHalf[f] && !used[f]) return null;
+  return { inHalf, image };
+}
+
+/**
+ * Makes each chart label on the faces outside `fixed` one connected region: every smaller fragment of a label
+ * takes the label most common among its faces' neighbours outside the fragment. Repeats until nothing changes
+ * (at most a few rounds; each round only merges fragments into neighbours).
+ */
+function defragment(g: FaceGraph, chartOf: Int32Array, fixed: Uint8Array): void {
+  const F = g.faceCount;
+  for (let round = 0; round < 8; round++) {
+    const comp = new Int32Array(F).fill(-1);
+    const sizes: number[] = [];
+    const labelOfComp: number[] = [];
+    for (let s = 0; s < F; s++) {
+      if (fixed[s] || comp[s] >= 0) continue;
+      const id = sizes.length;
+      const stack = [s];
+      comp[s] = id;
+      let size = 0;
+      while (stack.length > 0) {
+        const f = stack.pop()!;
+        size++;
+        for (let k = 0; k < 3; k++) {
+          const t = g.twin[3 * f + k];
+          if (t < 0) continue;
+          const n = (t / 3) | 0;
+          if (!fixed[n] && comp[n] < 0 && chartOf[n] === chartOf[s]) {
+            comp[n] = id;
+            stack.push(n);
+          }
+        }
+      }
+      sizes.push(size);
+      labelOfComp.push(chartOf[s]);
+    }
+    const largest = new Map<number, number>();
+    sizes.forEach((size, id) => {
+      const best = largest.get(labelOfComp[id]);
+      if (best === undefined || size > sizes[best]) largest.set(labelOfComp[id], id);
+    });
+    let changed = false;
+    const votes = new Map<number, Map<number, number>>();
+    for (let f = 0; f < F; f++) {
+      if (fixed[f] || largest.get(chartOf[f]) === comp[f]) continue;
+      for (let k = 0; k < 3; k++) {
+        const t = g.twin[3 * f + k];
+        if (t < 0) continue;
+        const n = (t / 3) | 0;
+        if (fixed[n] || comp[n] === comp[f]) continue;
+        const tally = votes.get(comp[f]) ?? new Map<number, number>();
+        tally.set(chartOf[n], (tally.get(chartOf[n]) ?? 0) + 1);
+        votes.set(comp[f], tally);
+      }
+    }
+    const newLabel = new Map<number, number>();
+    for (const [id, tally] of votes) {
+      let best = -1;
+      let bestCount = 0;
+      for (const [label, count] of tally) if (count > bestCount || (count === bestCount && label < best)) [best, bestCount] = [label, count];
+      if (best >= 0) newLabel.set(id, best);
+    }
+    for (let f = 0; f < F; f++) {
+      const l = newLabel.get(comp[f]);
+      if (!fixed[f] && l !== undefined && l !== chartOf[f]) {
+        chartOf[f] = l;
+        changed = true;
+      }
+    }
+    if (!changed) return;
+  }
 }
 
 /**
@@ -230,8 +397,10 @@ function centroidDistance(g: FaceGraph, f: number, h: number): number {
   return Math.hypot(c[3 * f] - c[3 * h], c[3 * f + 1] - c[3 * h + 1], c[3 * f + 2] - c[3 * h + 2]);
 }
 
-function components(g: FaceGraph): Int32Array[] {
+/** Connected parts of the face graph (restricted to faces with `only[f]` set when given). */
+function components(g: FaceGraph, only?: Uint8Array): Int32Array[] {
   const seen = new Uint8Array(g.faceCount);
+  if (only) for (let f = 0; f < g.faceCount; f++) if (!only[f]) seen[f] = 1;
   const out: Int32Array[] = [];
   for (let s = 0; s < g.faceCount; s++) {
     if (seen[s]) continue;
@@ -369,13 +538,14 @@ function mergeCharts(
   initialStretch: number[],
   stretchOf: (faces: Int32Array) => number,
   budget: number,
+  only?: Uint8Array,
 ): Int32Array[] {
   const chartCount = initialStretch.length;
   const stretch = initialStretch.slice();
   const area = new Float64Array(chartCount);
-  for (let f = 0; f < g.faceCount; f++) area[chartOf[f]] += g.areas[f];
+  for (let f = 0; f < g.faceCount; f++) if (chartOf[f] >= 0) area[chartOf[f]] += g.areas[f];
   const members: number[][] = Array.from({ length: chartCount }, () => []);
-  for (let f = 0; f < g.faceCount; f++) members[chartOf[f]].push(f);
+  for (let f = 0; f < g.faceCount; f++) if (chartOf[f] >= 0) members[chartOf[f]].push(f);
   const label = Int32Array.from(chartOf);
   const failed = new Set<string>();
   for (let merged = true; merged; ) {
@@ -387,6 +557,7 @@ function mergeCharts(
         if (t < 0) continue;
         const a = label[f];
         const b = label[(t / 3) | 0];
+        if (a < 0 || (only && (!only[f] || !only[(t / 3) | 0]))) continue;
         if (a < b) pairs.set(`${a}:${b}:${members[a].length}:${members[b].length}`, [a, b]);
       }
     }
@@ -424,6 +595,7 @@ function mergeCharts(
   const seen = new Uint8Array(chartCount);
   for (let f = 0; f < g.faceCount; f++) {
     const c = label[f];
+    if (c < 0) continue;
     if (!seen[c]) {
       seen[c] = 1;
       out.push(Int32Array.from(members[c]));

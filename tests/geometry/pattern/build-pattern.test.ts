@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildPattern } from '../../../geometry/pattern/build-pattern';
 import type { PatternDoc, PointMm } from '../../../geometry/pattern/pattern-doc';
 import { signedAreaMm2 } from '../../../geometry/pattern/piece-outline';
-import { cone, cylinder, icoSphere, platonicSolid, sphereGore } from '../../../geometry/shapes';
+import { cone, cylinder, helmetShell, icoSphere, platonicSolid, sphereGore, transformMesh } from '../../../geometry/shapes';
 import type { PlatonicKind } from '../../../geometry/shapes';
 import type { TriMesh } from '../../../geometry/mesh/tri-mesh';
 import { extent, fanPlate, hinge, joinMeshes, modelOf, polylineLength } from './pattern-fixtures';
@@ -272,6 +272,27 @@ describe('buildPattern: stations, score lines, grouping, darts, closed shells', 
     const plate = fanPlate([[0, 0], [40, 0], [40, 40], [20, 50], [0, 40]]);
     const cut = buildPattern(modelOf(plate, [[1, 3]]), { seams: 'obj' });
     expect(cut.warnings.some((w) => w.startsWith('seam line 1:'))).toBe(true);
+  });
+
+  it('cuts a mirror-modelled sculpt into mirror pairs: one template per pair, cut twice', () => {
+    // Half of the demo helmet (faces with y > 0; its triangulation has a loop of edges in y = 0) joined to its
+    // mirror image, as a sculpt modelled with a mirror is. Cleaning welds the shared centre line.
+    const h = helmetShell();
+    const F = h.triangles.length / 3;
+    const keep: number[] = [];
+    for (let f = 0; f < F; f++) {
+      let y = 0;
+      for (let k = 0; k < 3; k++) y += h.positions[3 * h.triangles[3 * f + k] + 1];
+      if (y > 0) keep.push(f);
+    }
+    const half: TriMesh = { positions: h.positions, triangles: Uint32Array.from(keep.flatMap((f) => [0, 1, 2].map((k) => h.triangles[3 * f + k]))) };
+    const doc = buildPattern(modelOf(joinMeshes([half, transformMesh(half, { scale: [1, -1, 1] })])));
+    expect(doc.pieces.length).toBeGreaterThan(1);
+    for (const p of doc.pieces) {
+      // Every template is cut twice, once turned over (the mirror image), and stays within the 3 % budget.
+      expect([p.quantity, p.mirrored, p.mirroredCopies]).toEqual([2, true, 1]);
+      expect(p.stretch.maxPct).toBeLessThanOrEqual(3);
+    }
   });
 
   it('carries the shop cautions and rejects bad options by name', () => {
