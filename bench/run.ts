@@ -1,8 +1,9 @@
 /**
  * `npm run bench`: runs every bench/*.bench.ts one after another (each exports `run(): Promise<BenchRow[]>`),
  * prints one table and writes bench/results.json (committed: the last results, with the machine they came
- * from). `npm run bench -- <word>` runs only the bench files whose name contains <word>. A benchmark that
- * throws is reported as a failed row; the run goes on with the next one.
+ * from). `npm run bench -- <word>` runs only the bench files whose name contains <word> and leaves
+ * results.json alone (it keeps one complete run). A benchmark that throws is reported as a failed row; the run
+ * goes on with the next one.
  */
 import { readdirSync, writeFileSync } from 'node:fs';
 import { cpus, totalmem } from 'node:os';
@@ -50,10 +51,11 @@ async function main(): Promise<void> {
   process.stdout.write(table(rows) + '\n');
   const met = rows.filter((r) => r.ok).length;
   process.stdout.write(`${met} of ${rows.length} targets met in ${((performance.now() - started) / 1000).toFixed(0)} s\n`);
+  if (filter) return;
   const machine = { cpus: cpus().length, cpu: cpus()[0]?.model ?? 'unknown', memoryGb: Math.round(totalmem() / 2 ** 30), node: process.version };
   writeFileSync(
     join(here, 'results.json'),
-    JSON.stringify({ ranAt: new Date().toISOString(), machine, filter: filter ?? null, rows }, null, 2) + '\n',
+    JSON.stringify({ ranAt: new Date().toISOString(), machine, rows }, null, 2) + '\n',
   );
 }
 
