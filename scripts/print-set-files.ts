@@ -4,7 +4,7 @@
  */
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import { planSheets } from '../geometry/layout/plan-sheets';
+import { planSheets, type SparesFor } from '../geometry/layout/plan-sheets';
 import { benchCardPdf } from '../geometry/export/bench-card-pdf';
 import { pageSize } from '../geometry/export/page-sizes';
 import { patternDxf } from '../geometry/export/pattern-dxf';
@@ -19,6 +19,7 @@ export interface PrintSetFileOptions {
   mode?: PrintMode;
   gapMm?: number;
   sparesPct?: number;
+  sparesFor?: SparesFor;
 }
 
 /**
@@ -29,7 +30,7 @@ export interface PrintSetFileOptions {
 export async function writePrintSetFiles(doc: PatternDoc, formats: Array<'pdf' | 'svg' | 'dxf'>, outDir: string, opts: PrintSetFileOptions = {}): Promise<string[]> {
   const page = opts.page ?? 'a4';
   pageSize(page);
-  const plan = planSheets(doc, { gapMm: opts.gapMm, sparesPct: opts.sparesPct });
+  const plan = planSheets(doc, { gapMm: opts.gapMm, sparesPct: opts.sparesPct, sparesFor: opts.sparesFor });
   await mkdir(outDir, { recursive: true });
   const written: string[] = [];
   const put = async (name: string, data: string | Uint8Array) => {

@@ -48,7 +48,7 @@ export async function benchCardPdf(doc: PatternDoc, plan: SheetPlan, opts: { fon
   };
   let y = newPage();
   y += c.para(`Bench card: ${name}`, [M, y], PAGE_W - 2 * M, 16, 'bold') + 2;
-  y += c.para(`Foam: ${plan.byThickness.map((t) => `${t.thicknessMm} mm, ${t.sheets} sheet${t.sheets === 1 ? '' : 's'} (${t.usedPct.toFixed(0)} % used, cost ${t.cost.toFixed(2)})`).join('; ')}. Spares: ${plan.sparesPct} % rounded up per piece. Cutting gap ${plan.gapMm} mm. Prices are defaults until you set your own.`, [M, y], PAGE_W - 2 * M, 8.5) + 3;
+  y += c.para(`Foam: ${plan.byThickness.map((t) => `${t.thicknessMm} mm, ${t.sheets} sheet${t.sheets === 1 ? '' : 's'} (${t.usedPct.toFixed(0)} % used, cost ${t.cost.toFixed(2)})`).join('; ')}. ${plan.sparesRule[0].toUpperCase()}${plan.sparesRule.slice(1)}. Cutting gap ${plan.gapMm} mm. Prices are defaults until you set your own.`, [M, y], PAGE_W - 2 * M, 8.5) + 3;
 
   y += c.para('Pieces', [M, y], 100, 11, 'bold') + 1;
   const pieceRows = doc.pieces.map((p) => {

@@ -51,9 +51,15 @@ export interface ThicknessSummary {
   stockNote: string;
 }
 
+/** Which pieces get spare copies: only repeated parts (quantity 2 or more), or every piece. */
+export type SparesFor = 'repeated' | 'all';
+
 export interface SheetPlan {
   gapMm: number;
   sparesPct: number;
+  sparesFor: SparesFor;
+  /** The spares rule in words, as printed on the bench card. */
+  sparesRule: string;
   rotationStepDeg: number;
   /** Grid cell used for the search, mm. */
   cellMm: number;
@@ -69,6 +75,12 @@ export interface PlanSheetsOptions {
   gapMm?: number;
   /** Spare copies as a percentage of each piece's quantity, rounded up per piece. Default 10. */
   sparesPct?: number;
+  /**
+   * Which pieces get spares: 'repeated' (default) only pieces with quantity 2 or more, since makers cut
+   * spares of small repeated parts (shared/DESIGN.md, "What the trade knows", common practice); 'all'
+   * gives every piece its allowance.
+   */
+  sparesFor?: SparesFor;
   /** Rotation step, degrees; 360 disables rotation. Default 15. */
   rotationStepDeg?: number;
   /** Search grid cell, mm. Default 1 (coarser on sheets over 1.5 m). */
@@ -114,7 +126,8 @@ function checkPiece(p: PatternPiece, i: number): void {
   if (Math.abs(signedAreaMm2(p.outline)) < 1e-6) throw new GeometryError('LAYOUT_FAILED', `${name} has an outline with no area`);
 }
 
-function checkOptions(gapMm: number, sparesPct: number, stepDeg: number, cellMm: number | undefined): void {
+function checkOptions(gapMm: number, sparesPct: number, sparesFor: string, stepDeg: number, cellMm: number | undefined): void {
+  if (sparesFor !== 'repeated' && sparesFor !== 'all') throw new GeometryError('BAD_OPTION', `spares must go to "repeated" or "all" pieces, got "${sparesFor}"`);
   if (!(Number.isFinite(gapMm) && gapMm >= 0)) throw new GeometryError('BAD_OPTION', `cutting gap must be 0 mm or more, got ${gapMm}`);
   if (!(Number.isFinite(sparesPct) && sparesPct >= 0)) throw new GeometryError('BAD_OPTION', `spares allowance must be 0 % or more, got ${sparesPct}`);
   if (!(Number.isFinite(stepDeg) && stepDeg > 0 && stepDeg <= 360)) {
@@ -127,11 +140,24 @@ function pieceArea(p: PatternPiece): number {
   return Math.abs(signedAreaMm2(p.outline)) - p.holes.reduce((s, h) => s + Math.abs(signedAreaMm2(h)), 0);
 }
 
-/** Expands each piece into its copies: quantity, then ceil(quantity·sparesPct/100) spares; every second copy of a mirrored piece is the mirror image. */
-function copyJobs(doc: PatternDoc, sparesPct: number): CopyJob[] {
+/** Number of spare copies of a piece of `quantity` under the rule: ceil(quantity·pct/100), for repeated parts only unless `sparesFor` is 'all'. */
+export function spareCount(quantity: number, sparesPct: number, sparesFor: SparesFor): number {
+  if (sparesFor === 'repeated' && quantity < 2) return 0;
+  return Math.ceil((quantity * sparesPct) / 100 - 1e-9);
+}
+
+/** The spares rule in words for the bench card and the sheet-plan JSON. */
+export function sparesRuleText(sparesPct: number, sparesFor: SparesFor): string {
+  if (sparesPct === 0) return 'no spares';
+  const who = sparesFor === 'all' ? 'every piece' : 'repeated parts only (pieces cut 2 or more times)';
+  return `spares: ${sparesPct} % of the quantity, rounded up per piece, for ${who}`;
+}
+
+/** Expands each piece into its copies: quantity, then its spares (spareCount); every second copy of a mirrored piece is the mirror image. */
+function copyJobs(doc: PatternDoc, sparesPct: number, sparesFor: SparesFor): CopyJob[] {
   const jobs: CopyJob[] = [];
   for (const piece of doc.pieces) {
-    const spares = Math.ceil((piece.quantity * sparesPct) / 100 - 1e-9);
+    const spares = spareCount(piece.quantity, sparesPct, sparesFor);
     const area = pieceArea(piece);
     for (let k = 0; k < piece.quantity + spares; k++) {
       jobs.push({ piece, copy: k + 1, spare: k >= piece.quantity, mirrored: piece.mirrored && k % 2 === 1, area });
@@ -150,9 +176,10 @@ function copyJobs(doc: PatternDoc, sparesPct: number): CopyJob[] {
 export function planSheets(doc: PatternDoc, opts: PlanSheetsOptions = {}): SheetPlan {
   const gapMm = opts.gapMm ?? 3;
   const sparesPct = opts.sparesPct ?? 10;
+  const sparesFor = opts.sparesFor ?? 'repeated';
   const stepDeg = opts.rotationStepDeg ?? 15;
   const stock = opts.stock ?? DEFAULT_STOCK_SHEETS;
-  checkOptions(gapMm, sparesPct, stepDeg, opts.cellMm);
+  checkOptions(gapMm, sparesPct, sparesFor, stepDeg, opts.cellMm);
   if (!doc.pieces || doc.pieces.length === 0) throw new GeometryError('LAYOUT_FAILED', 'the pattern has no pieces to lay out on stock sheets');
   doc.pieces.forEach(checkPiece);
 
@@ -202,7 +229,7 @@ export function planSheets(doc: PatternDoc, opts: PlanSheetsOptions = {}): Sheet
     labelsSeen.add(p.label);
   }
 
-  for (const job of copyJobs(doc, sparesPct)) {
+  for (const job of copyJobs(doc, sparesPct, sparesFor)) {
     const t = job.piece.thickness;
     const options = stockForThickness(t, stock);
     const list = orientationsOf(job.piece, job.mirrored);
@@ -271,5 +298,5 @@ export function planSheets(doc: PatternDoc, opts: PlanSheetsOptions = {}): Sheet
       };
     });
   placements.sort((a, b) => a.sheetIndex - b.sheetIndex || a.pieceLabel.localeCompare(b.pieceLabel) || a.copy - b.copy);
-  return { gapMm, sparesPct, rotationStepDeg: stepDeg, cellMm, sheets, placements, byThickness, totalCost: byThickness.reduce((s, b) => s + b.cost, 0) };
+  return { gapMm, sparesPct, sparesFor, sparesRule: sparesRuleText(sparesPct, sparesFor), rotationStepDeg: stepDeg, cellMm, sheets, placements, byThickness, totalCost: byThickness.reduce((s, b) => s + b.cost, 0) };
 }

@@ -85,6 +85,8 @@ describe('benchCardPdf', () => {
     expect(all).toMatch(/22\.5° inner/);
     expect(all).toMatch(/outside/);
     expect(all).toMatch(/inside/);
+    // The spares rule is stated on the card (shared/DESIGN.md "What the trade knows": spares of repeated parts).
+    expect(all.replace(/\s+/g, ' ')).toMatch(/10 % of the quantity, rounded up per piece, for repeated parts only/);
     expect(all).toMatch(/respirator/);
     expect(all).toMatch(/safety data sheet/);
   });

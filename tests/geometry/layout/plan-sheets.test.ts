@@ -81,9 +81,13 @@ describe('planSheets', () => {
   it('places every copy (quantity, mirrored copies, spares rounded up) without overlap and inside the sheet', () => {
     const doc = helmetLikeDoc();
     const plan = planSheets(doc);
-    // Spares: ceil(q · 10 %) per piece (issue 4: "default 10%, rounded up"): q=1 → 1 spare, q=2 → 1, q=3 → 1.
-    const expected = doc.pieces.reduce((s, p) => s + p.quantity + Math.ceil(p.quantity / 10), 0);
-    expect(plan.placements.length).toBe(expected);
+    // Spares: ceil(q · 10 %) per piece (issue 4: "default 10%, rounded up"), only for repeated parts
+    // (q ≥ 2; shared/DESIGN.md "What the trade knows": spares of small repeated parts, common practice):
+    // the fixture's q=1 pieces A, B, E, F get none, C (q=2) and D (q=3) get 1 each.
+    expect(plan.placements.length).toBe(doc.pieces.reduce((s, p) => s + p.quantity, 0) + 2);
+    expect(plan.placements.filter((p) => p.spare).map((p) => p.pieceLabel).sort()).toEqual(['C', 'D']);
+    expect(plan.sparesFor).toBe('repeated');
+    expect(plan.sparesRule).toMatch(/10 %.*rounded up.*repeated parts only/);
     const c = plan.placements.filter((p) => p.pieceLabel === 'C');
     // Issue 4 / H6 brief: quantity 2 and mirrored → one copy and one mirror image (the spare is a third copy).
     expect(c.filter((p) => !p.spare).map((p) => p.mirrored).sort()).toEqual([false, true]);
@@ -94,6 +98,19 @@ describe('planSheets', () => {
       const src = doc.pieces.find((q) => q.label === p.pieceLabel)!;
       expect(signedAreaMm2(p.outline)).toBeCloseTo(shoelaceArea(src.outline), 6);
     }
+  });
+
+  it('gives every piece its spares when asked (sparesFor "all"), and none at 0 %', () => {
+    const doc = helmetLikeDoc();
+    // Issue 4: 10 % of each piece's quantity, rounded up: q=1 → 1, q=2 → 1, q=3 → 1 (ceil(0.1), ceil(0.2), ceil(0.3)).
+    const all = planSheets(doc, { sparesFor: 'all' });
+    expect(all.placements.filter((p) => p.spare).length).toBe(doc.pieces.length);
+    expect(all.sparesRule).toMatch(/every piece/);
+    // 25 % of quantity 3 is 0.75, rounded up to 1 (issue 4: rounded up per piece); 25 % of 2 is 0.5 → 1.
+    const quarter = planSheets(doc, { sparesPct: 25 });
+    expect(quarter.placements.filter((p) => p.spare).map((p) => p.pieceLabel).sort()).toEqual(['C', 'D']);
+    expect(planSheets(doc, { sparesPct: 0 }).placements.some((p) => p.spare)).toBe(false);
+    expect(() => planSheets(doc, { sparesFor: 'some' as 'all' })).toThrow(/spares must go to "repeated" or "all" pieces, got "some"/);
   });
 
   it('keeps the cutting gap between neighbours, and wastes at most about two grid cells more', () => {
