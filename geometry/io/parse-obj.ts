@@ -64,10 +64,11 @@ export function parseObj(bytes: Uint8Array, limits: ParseLimits = {}): ImportedM
     }
   };
 
+  const plural: Record<string, string> = { vertex: 'vertices', 'texture coordinate': 'texture coordinates', normal: 'normals' };
   const resolve = (raw: number, count: number, kind: string): number => {
     const idx = raw > 0 ? raw - 1 : count + raw;
     if (raw === 0 || idx < 0 || idx >= count) {
-      const why = raw === 0 ? 'OBJ indices start at 1' : `only ${count} ${kind}${count === 1 ? '' : 's'} defined so far`;
+      const why = raw === 0 ? 'OBJ indices start at 1' : `only ${count} ${count === 1 ? kind : plural[kind] ?? kind} defined so far`;
       throw new GeometryError('INDEX_OUT_OF_RANGE', `OBJ line ${s.line}: ${kind} index ${raw} is out of range (${why})`, { line: s.line });
     }
     return idx;

@@ -45,12 +45,14 @@ export function parseBinaryStl(bytes: Uint8Array, limits: ParseLimits = {}): Imp
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const n = view.getUint32(80, true);
   if (n === 0) throw new GeometryError('NO_FACES', 'binary STL says it holds 0 triangles');
-  if (n > maxTriangles) {
-    throw new GeometryError('TOO_MANY_TRIANGLES', `binary STL holds ${n} triangles, more than the limit of ${maxTriangles}; reduce the model first`);
-  }
+  // Size before count: random bytes read as a header give a huge count, and "cut short or not an STL"
+  // is the true problem there, not the triangle limit.
   if (84 + 50 * n > bytes.length) {
     const room = Math.floor((bytes.length - 84) / 50);
-    throw new GeometryError('TRUNCATED', `binary STL header says ${n} triangles but the file only has room for ${room}: it is cut short`, { face: room });
+    throw new GeometryError('TRUNCATED', `binary STL header says ${n} triangles but the file only has room for ${room}: it is cut short or is not an STL file`, { face: room });
+  }
+  if (n > maxTriangles) {
+    throw new GeometryError('TOO_MANY_TRIANGLES', `binary STL holds ${n} triangles, more than the limit of ${maxTriangles}; reduce the model first`);
   }
   const positions = new Float64Array(9 * n);
   for (let f = 0; f < n; f++) {
