@@ -1,11 +1,13 @@
 /**
- * Arranges one paper template per piece for the tiled print: pieces in their own orientation, in
+ * Arranges one paper template per piece for the tiled print: each piece turned square to the page (its
+ * minimum-area rectangle along the axes; the sheet plan's nesting turns are separate), in
  * shelves (rows) across a strip whose width is a whole number of page steps, choosing the width that
  * needs the fewest pages. Paper is cheap, so simple shelves (Coffman et al. 1980, next-fit decreasing
  * height) are enough here; foam is nested true-shape in layout/plan-sheets.ts.
  */
 import type { PatternDoc, PatternPiece } from '../pattern/pattern-doc';
-import { boundsOf, type PlaceTransform } from '../layout/outline-transform';
+import { minAreaRect } from '../layout/min-area-rect';
+import { boundsOf, placeRing, type PlaceTransform } from '../layout/outline-transform';
 import { tilePages, type TileGrid, type TileOptions } from './tile-pages';
 import type { PageSizeName } from './page-sizes';
 
@@ -21,8 +23,21 @@ export interface TemplateArrangement {
   grid: TileGrid;
 }
 
+/**
+ * The turn (degrees) that sets a template square to the page: its minimum-area rectangle axis-aligned,
+ * long side along x (min-area-rect.ts), so a square cube face prints square rather than as a diamond.
+ */
+export function templateRotationDeg(piece: PatternPiece): number {
+  return minAreaRect(piece.outline).rotationDeg;
+}
+
 function shelves(pieces: PatternPiece[], stripW: number, gap: number): { items: ArrangedTemplate[]; w: number; h: number } {
-  const sized = pieces.map((piece) => ({ piece, b: boundsOf(piece.outline) })).sort((a, b) => b.b.maxY - b.b.minY - (a.b.maxY - a.b.minY));
+  const sized = pieces
+    .map((piece) => {
+      const rotationDeg = templateRotationDeg(piece);
+      return { piece, rotationDeg, b: boundsOf(placeRing(piece.outline, { mirrored: false, rotationDeg, x: 0, y: 0 })) };
+    })
+    .sort((a, b) => b.b.maxY - b.b.minY - (a.b.maxY - a.b.minY));
   const rows: Array<{ list: typeof sized; h: number }> = [];
   let cur: { list: typeof sized; h: number; w: number } | null = null;
   for (const s of sized) {
@@ -41,7 +56,7 @@ function shelves(pieces: PatternPiece[], stripW: number, gap: number): { items: 
   for (const r of rows) {
     let x = gap;
     for (const s of r.list) {
-      items.push({ piece: s.piece, transform: { mirrored: false, rotationDeg: 0, x: x - s.b.minX, y: top - (s.b.maxY - s.b.minY) - s.b.minY } });
+      items.push({ piece: s.piece, transform: { mirrored: false, rotationDeg: s.rotationDeg, x: x - s.b.minX, y: top - (s.b.maxY - s.b.minY) - s.b.minY } });
       x += s.b.maxX - s.b.minX + gap;
     }
     maxW = Math.max(maxW, x);

@@ -10,10 +10,10 @@
  */
 import { GeometryError } from '../errors';
 import { sharedAreaMm2 } from '../layout/clipper-paths';
-import { boundsOf, type BoundsMm } from '../layout/outline-transform';
+import { boundsOf, placeRing, type BoundsMm } from '../layout/outline-transform';
 import type { SheetPlan } from '../layout/plan-sheets';
 import type { PatternDoc, PointMm } from '../pattern/pattern-doc';
-import { arrangeTemplates } from './arrange-templates';
+import { arrangeTemplates, templateRotationDeg } from './arrange-templates';
 import { pageSize, type PageSize } from './page-sizes';
 import { drawAlignmentMark, drawScaleSquares, PdfCanvas, STYLE_PEN, type PdfFonts } from './pdf-canvas';
 import { pieceDrawing, type PieceDrawing } from './piece-drawing';
@@ -56,9 +56,10 @@ function buildAreas(doc: PatternDoc, plan: SheetPlan, opts: PrintSetPdfOptions):
   }
   if (opts.mode === 'piece-per-page') {
     return doc.pieces.map((piece) => {
-      const b = boundsOf(piece.outline);
+      const rotationDeg = templateRotationDeg(piece);
+      const b = boundsOf(placeRing(piece.outline, { mirrored: false, rotationDeg, x: 0, y: 0 }));
       const border = 14;
-      const t = { mirrored: false, rotationDeg: 0, x: border - b.minX, y: border - b.minY };
+      const t = { mirrored: false, rotationDeg, x: border - b.minX, y: border - b.minY };
       const d = pieceDrawing(piece, doc, t);
       const widthMm = b.maxX - b.minX + 2 * border;
       const heightMm = b.maxY - b.minY + 2 * border;
