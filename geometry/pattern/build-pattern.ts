@@ -9,7 +9,7 @@ import { GeometryError } from '../errors';
 import { flattenPiece, type FlatPiece } from '../flatten/flatten-piece';
 import { buildTwins } from '../mesh/half-edges';
 import type { ImportedModel } from '../mesh/tri-mesh';
-import { groupPieces } from '../pieces/group-pieces';
+import { applyPlaneMotion, groupPieces, IDENTITY_MOTION, type PlaneMotion } from '../pieces/group-pieces';
 import { pieceLabel } from '../pieces/label-pieces';
 import { suggestDart } from '../pieces/suggest-dart';
 import { offsetSurface, surfaceOffsetMm } from '../thickness/offset-surface';
@@ -141,7 +141,7 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
   // Group identical and mirrored pieces; groups take the labels A, B, … in order.
   const groups =
     options.groupIdentical === false
-      ? pieces.map((_, i) => ({ representative: i, members: [{ index: i, mirrored: false }] }))
+      ? pieces.map((_, i) => ({ representative: i, members: [{ index: i, mirrored: false, toTemplate: IDENTITY_MOTION }] }))
       : groupPieces(
           flattened.map((f, i) => ({
             outline: f.outline.outline,
@@ -152,10 +152,14 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
           })),
         );
   const labelOf: string[] = new Array(pieces.length);
-  const isRepresentative = new Uint8Array(pieces.length);
+  // Where each piece's seam edges go: its group's representative, as copy number `copy`, carried into the
+  // template's frame by `toTemplate`.
+  const placeOf: Array<{ representative: number; copy: number; toTemplate: PlaneMotion }> = new Array(pieces.length);
   groups.forEach((g, gi) => {
-    isRepresentative[g.representative] = 1;
-    for (const m of g.members) labelOf[m.index] = pieceLabel(gi);
+    g.members.forEach((m, copy) => {
+      labelOf[m.index] = pieceLabel(gi);
+      placeOf[m.index] = { representative: g.representative, copy, toTemplate: m.toTemplate };
+    });
   });
 
   // Seams, their bevels and each side's run along a piece outline.
@@ -165,11 +169,12 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
     const bevel = seamBevel(mesh.positions, chain.vertices, Float64Array.from(chain.halfEdges, (h) => dihedralDeg[h]));
     const sides = seamSides(chain, mesh.triangles, twin, pieces, pieceOfFace, localFaceOf, (p) => flattened[p].flat.uv);
     sides.forEach((side, s) => {
-      if (!isRepresentative[side.piece]) return;
-      seamEdgesOf[side.piece].push({
+      const place = placeOf[side.piece];
+      seamEdgesOf[place.representative].push({
         seam: label,
         side: s as 0 | 1,
-        path: side.path,
+        copy: place.copy,
+        path: place.copy === 0 ? side.path : side.path.map((p) => applyPlaneMotion(place.toTemplate, p)),
         bevelDeg: bevel.bevel.mean,
         bevelFace: bevel.bevelFace,
       });
@@ -229,7 +234,7 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
       thickness,
       surface,
       perimeterChangeMm,
-      seamEdges: seamEdgesOf[i],
+      seamEdges: seamEdgesOf[i].sort((x, y) => (x.copy ?? 0) - (y.copy ?? 0)),
       scoreLines: scoreLines(piece.triangles, localTwin, localDihedral, flat.uv, scoreDeg),
       darts,
       textureLine: null,

@@ -25,6 +25,15 @@ export interface PieceSeamEdge {
   seam: string;
   /** Which side of the seam this piece is: 0 or 1 (a tube's self-seam has both on one piece). */
   side: 0 | 1;
+  /**
+   * Which of the piece's `quantity` copies this edge belongs to: 0 is the template itself, k the k-th further
+   * copy. Copies alternate plain and mirrored as far as the counts allow (copy k is mirrored when k is odd,
+   * while mirrored copies last), so a sheet plan that turns every second copy over puts these marks on the
+   * right cut piece. `path` is always in the template's frame: a mirrored copy's edge is carried through the
+   * mirror, so it lies on the template's outline and reads right once the template is turned over. Absent
+   * means 0 (documents written before copies were listed).
+   */
+  copy?: number;
   path: PointMm[];
   /** Bevel to cut on this edge, degrees from square, and on which face it removes material. */
   bevelDeg: number;

@@ -59,8 +59,10 @@ describe('buildPattern: Platonic solids with every edge a seam', () => {
         for (const l of s.lengths) expect(l).toBeCloseTo(edge, 6);
         expect(s.pieces).toEqual(['A', 'A']);
       }
-      // The representative carries a seam edge along each of its p sides.
-      expect(doc.pieces[0].seamEdges).toHaveLength(p);
+      // The representative (copy 0) carries a seam edge along each of its p sides, and so does every other copy:
+      // 2·edges = p·faces entries in all (each edge borders two faces).
+      expect(doc.pieces[0].seamEdges!.filter((e) => (e.copy ?? 0) === 0)).toHaveLength(p);
+      expect(doc.pieces[0].seamEdges).toHaveLength(2 * edges);
       for (const e of doc.pieces[0].seamEdges!) expect(polylineLength(e.path)).toBeCloseTo(edge, 6);
     });
   }
