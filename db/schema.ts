@@ -17,6 +17,7 @@ import {
   timestamp,
   uuid,
 } from 'drizzle-orm/pg-core';
+import type { PatternDoc } from '../geometry/pattern/pattern-doc';
 import { ROLES } from './validation';
 
 /** Role of a person inside one shop: owner (runs it), editor (crew at the bench), viewer (commission client). */
@@ -100,3 +101,46 @@ export const rateLimitHits = pgTable('rate_limit_hits', {
   hits: integer('hits').notNull(),
   resetAt: timestamp('reset_at', { withTimezone: true }).notNull(),
 });
+
+/** Where a print set is in its life: queued for a worker, being rendered, done (files stored) or failed. */
+export const printSetStatus = pgEnum('print_set_status', ['queued', 'running', 'done', 'failed']);
+
+/** One stored file of a print set: its name (also the last part of its storage key), size and media type. */
+export interface PrintSetFileEntry {
+  name: string;
+  sizeBytes: number;
+  contentType: string;
+}
+
+/**
+ * A print set: the PDF/SVG/DXF files made from one pattern document for a build, rendered by a worker. The
+ * pattern is kept as sent so the job (and a re-run) reads exactly what was asked for; the files live in the
+ * file store under `print-sets/<id>/`.
+ */
+export const printSets = pgTable(
+  'print_sets',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    shopId: uuid('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    buildId: uuid('build_id')
+      .notNull()
+      .references(() => builds.id, { onDelete: 'cascade' }),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    name: text('name').notNull(),
+    status: printSetStatus('status').notNull().default('queued'),
+    formats: text('formats').array().notNull(),
+    page: text('page').notNull(),
+    mode: text('mode').notNull(),
+    pieceCount: integer('piece_count').notNull(),
+    pattern: jsonb('pattern').$type<PatternDoc>().notNull(),
+    files: jsonb('files').$type<PrintSetFileEntry[]>().notNull().default([]),
+    error: text('error'),
+    jobId: text('job_id'),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('print_sets_build_created_idx').on(t.buildId, t.createdAt.desc())],
+);

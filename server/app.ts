@@ -22,7 +22,11 @@ import { mountRoutes, type MountableRoute } from './http/define-route';
 import { healthRoutes } from './http/health';
 import { webAppRouter } from './http/web-app';
 import { createLogger } from './logger';
+import type { JobSender } from './jobs/job-sender';
+import { PRINT_SET_BODY_LIMIT, PRINT_SETS_PATH, printSetRoutes } from './print-sets/router';
 import { shopRoutes } from './shops/router';
+import type { FileStore } from './storage/file-store';
+import { localDiskStore } from './storage/local-disk-store';
 
 export interface AppDeps {
   env: Env;
@@ -33,6 +37,10 @@ export interface AppDeps {
   logger?: Logger;
   /** Overrides the sign-in limit from the environment (tests use a small one). */
   signInLimit?: SignInLimitOptions;
+  /** Puts heavy work on the job queue; without it, routes that queue work answer 503 QUEUE_UNAVAILABLE. */
+  jobs?: JobSender;
+  /** Where generated files are kept; defaults to the local-disk store in FILES_DIR. */
+  files?: FileStore;
 }
 
 /** Returns every API route of the server (used to mount them and by the tests that walk the access table). */
@@ -44,6 +52,7 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
     ...authRoutes({ db: deps.db, sessionKey: key, cookieSecure, signInLimit }),
     ...shopRoutes(deps.db),
     ...buildRoutes(deps.db),
+    ...printSetRoutes({ db: deps.db, files: deps.files ?? localDiskStore(deps.env.FILES_DIR), jobs: deps.jobs ?? null }),
     ...auditRoutes(deps.db),
     ...adminRoutes(deps.db),
   ];
@@ -100,6 +109,9 @@ export function createApp(deps: AppDeps): Express {
       },
     }),
   );
+  // A pattern document can run to megabytes; every other body stays small. The first parser to read a body
+  // marks it read, so the general one below skips these requests.
+  app.post(PRINT_SETS_PATH, express.json({ limit: PRINT_SET_BODY_LIMIT }));
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 

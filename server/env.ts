@@ -18,6 +18,8 @@ const envSchema = z
     PORT: z.coerce.number().int().min(1).max(65_535).default(8470),
     SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
     WEB_ROOT: z.string().min(1).default('dist'),
+    /** Directory of the local-disk file store (print sets and other generated files). */
+    FILES_DIR: z.string().min(1).default('.data/files'),
     COOKIE_SECURE: z.enum(['auto', 'true', 'false']).default('auto'),
     TRUST_PROXY: z.string().default('loopback'),
     LOG_LEVEL: z.enum(LOG_LEVELS).default('info'),

@@ -8,6 +8,8 @@ import { runMigrations } from '../db/migrate';
 import { createApp } from './app';
 import { loadOrCreateSessionSecret } from './auth/session-secret';
 import { parseEnv } from './env';
+import { pgBossJobSender } from './jobs/job-sender';
+import { startQueue, stopQueue } from './jobs/queue';
 import { createLogger } from './logger';
 
 async function main(): Promise<void> {
@@ -16,7 +18,9 @@ async function main(): Promise<void> {
   const pool = createPool(env.DATABASE_URL);
   await runMigrations(pool);
   const sessionSecret = loadOrCreateSessionSecret(env.SESSION_SECRET, path.join(process.cwd(), '.data', 'session-secret'));
-  const app = createApp({ env, pool, db: createDb(pool), sessionSecret, logger });
+  // The API only sends jobs: no maintenance or cron here (server/worker.ts does those).
+  const boss = await startQueue(env.DATABASE_URL, logger, { supervise: false, schedule: false });
+  const app = createApp({ env, pool, db: createDb(pool), sessionSecret, logger, jobs: pgBossJobSender(boss) });
 
   const server = app.listen(env.PORT, env.HOST, () => {
     logger.info({ url: `http://${env.HOST}:${env.PORT}` }, 'Sheetsmith API listening');
@@ -33,10 +37,13 @@ async function main(): Promise<void> {
     logger.info({ signal }, 'stopping');
     const force = setTimeout(() => process.exit(1), 10_000);
     server.close(() => {
-      pool.end().finally(() => {
-        clearTimeout(force);
-        process.exit(0);
-      });
+      stopQueue(boss, 5_000)
+        .catch((err: unknown) => logger.error({ err }, 'job queue did not stop cleanly'))
+        .then(() => pool.end())
+        .finally(() => {
+          clearTimeout(force);
+          process.exit(0);
+        });
     });
     server.closeIdleConnections();
   };

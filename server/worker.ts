@@ -10,6 +10,7 @@ import { registerWorkers } from './jobs/register-workers';
 import { startQueue, stopQueue } from './jobs/queue';
 import { JOB_TYPES } from './jobs/job-types';
 import { createLogger } from './logger';
+import { localDiskStore } from './storage/local-disk-store';
 
 async function main(): Promise<void> {
   const env = parseEnv(process.env);
@@ -17,7 +18,7 @@ async function main(): Promise<void> {
   const pool = createPool(env.DATABASE_URL, 4);
   await runMigrations(pool);
   const boss = await startQueue(env.DATABASE_URL, logger, { supervise: true, schedule: true });
-  await registerWorkers(boss, { db: createDb(pool) }, logger, { schedule: true, pollingIntervalSeconds: 2 });
+  await registerWorkers(boss, { db: createDb(pool), files: localDiskStore(env.FILES_DIR) }, logger, { schedule: true, pollingIntervalSeconds: 2 });
   logger.info({ jobTypes: JOB_TYPES.map((t) => t.name) }, 'worker ready');
 
   let stopping = false;

@@ -3,7 +3,7 @@ import type { DbExecutor } from '../../db/client';
 import { insertAuditEntry, selectShopAudit } from './queries';
 
 /** The recorded actions; entries are written in the same transaction as the change they describe. */
-export type AuditAction = 'user.signup' | 'shop.create' | 'build.create' | 'build.rename' | 'build.delete';
+export type AuditAction = 'user.signup' | 'shop.create' | 'build.create' | 'build.rename' | 'build.delete' | 'print-set.create';
 
 /** Records that `userId` did `action` on `target` (e.g. "build:<id>") in `shopId`, with names in `detail`. */
 export function recordAudit(

@@ -34,6 +34,10 @@ export const ROUTE_ACCESS: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'viewer' } },
   { method: 'PATCH', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'editor' } },
   { method: 'DELETE', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'owner' } },
+  { method: 'POST', path: '/api/shops/:shopId/builds/:buildId/print-sets', access: { shopRole: 'editor' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets', access: { shopRole: 'viewer' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets/:printSetId', access: { shopRole: 'viewer' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets/:printSetId/files/:fileName', access: { shopRole: 'viewer' } },
   { method: 'GET', path: '/api/shops/:shopId/audit', access: { shopRole: 'owner' } },
   { method: 'GET', path: '/api/admin/users', access: 'admin' },
 ];

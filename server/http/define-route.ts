@@ -6,6 +6,8 @@
  * without one does not compile.
  */
 import type { Request, RequestHandler, Response, Router } from 'express';
+import type { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import type { z } from 'zod';
 import type { Role } from '../../db/validation';
 import { ROUTE_ACCESS, describeAccess, sameAccess, type AccessRule, type HttpMethod } from '../auth/access';
@@ -33,8 +35,28 @@ export type CallerFor<A extends AccessRule> = A extends 'public'
 
 export type RouteInput<A extends AccessRule, B, P> = CallerFor<A> & { body: B; params: P; req: Request; res: Response };
 
-/** What a handler answers: a status with a JSON body, or a status with no body (204). */
-export type RouteResult = { status: number; json?: unknown };
+/** A file answer: its bytes as a stream, its size, media type and the name offered for saving it. */
+export interface FileAnswer {
+  stream: Readable;
+  sizeBytes: number;
+  contentType: string;
+  fileName: string;
+}
+
+/** What a handler answers: a status with a JSON body, a status with no body (204), or a file. */
+export type RouteResult = { status: number; json?: unknown } | { status: number; file: FileAnswer };
+
+/**
+ * Sends a file as an attachment (RFC 6266 Content-Disposition; names are plain ASCII here, so the quoted
+ * form suffices). Browsers then save SVG and the like instead of rendering them inside the app's origin.
+ */
+async function sendFile(res: Response, status: number, file: FileAnswer): Promise<void> {
+  res.status(status);
+  res.setHeader('Content-Type', file.contentType);
+  res.setHeader('Content-Length', String(file.sizeBytes));
+  res.setHeader('Content-Disposition', `attachment; filename="${file.fileName.replace(/["\\]/g, '_')}"`);
+  await pipeline(file.stream, res);
+}
 
 export interface RouteDefinition<A extends AccessRule, B, P> {
   method: HttpMethod;
@@ -100,7 +122,8 @@ export function defineRoute<const A extends AccessRule, B = undefined, P = Recor
         // The guard has enforced the rule, so the caller has the shape the rule promises (see CallerFor).
         const input = { ...caller, body, params, req, res } as unknown as RouteInput<A, B, P>;
         const result = await def.handler(input);
-        if (result.json === undefined) res.status(result.status).end();
+        if ('file' in result) await sendFile(res, result.status, result.file);
+        else if (result.json === undefined) res.status(result.status).end();
         else res.status(result.status).json(result.json);
       };
       router[verb](def.path, ...(def.before ?? []), run);

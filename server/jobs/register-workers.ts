@@ -14,7 +14,7 @@ export async function registerWorkers(
   options: { schedule: boolean; pollingIntervalSeconds: number; jobTypes?: readonly JobType[] },
 ): Promise<void> {
   for (const type of options.jobTypes ?? JOB_TYPES) {
-    await boss.createQueue(type.name);
+    await boss.createQueue(type.name, { name: type.name, ...type.queue });
     if (options.schedule && type.cron) await boss.schedule(type.name, type.cron);
     await boss.work(type.name, { pollingIntervalSeconds: options.pollingIntervalSeconds }, async (jobs) => {
       const results = [];

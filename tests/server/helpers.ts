@@ -55,6 +55,8 @@ export async function makeTestApp(overrides: Partial<Omit<AppDeps, 'pool' | 'db'
     sessionSecret: secret,
     logger: overrides.logger ?? createLogger('silent', 'test'),
     signInLimit: overrides.signInLimit ?? { max: 3, windowMs: 60_000 },
+    jobs: overrides.jobs,
+    files: overrides.files,
   });
   return { app, pool, db, secret, key: sessionKey(secret), close: () => pool.end() };
 }

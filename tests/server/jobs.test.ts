@@ -1,3 +1,6 @@
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rateLimitHits } from '../../db/schema';
@@ -5,6 +8,7 @@ import { JOB_TYPES } from '../../server/jobs/job-types';
 import { registerWorkers } from '../../server/jobs/register-workers';
 import { QUEUE_SCHEMA, startQueue, stopQueue } from '../../server/jobs/queue';
 import { createLogger } from '../../server/logger';
+import { localDiskStore } from '../../server/storage/local-disk-store';
 import { makeTestApp, TEST_DATABASE_URL, type TestContext } from './helpers';
 
 let ctx: TestContext;
@@ -31,7 +35,12 @@ describe('job queue', () => {
         { key: live, hits: 2, resetAt: new Date(Date.now() + 600_000) },
       ]);
 
-      await registerWorkers(boss, { db: ctx.db }, logger, { schedule: false, pollingIntervalSeconds: 0.5 });
+      await registerWorkers(boss, { db: ctx.db, files: localDiskStore(mkdtempSync(path.join(tmpdir(), 'sheetsmith-jobs-'))) }, logger, {
+        schedule: false,
+        pollingIntervalSeconds: 0.5,
+        // Only the job under test: a print-set worker here would take other test files' print-set jobs.
+        jobTypes: JOB_TYPES.filter((t) => t.name === 'rate-limit-prune'),
+      });
       const jobId = await boss.send('rate-limit-prune', {});
       expect(jobId).toBeTruthy();
 

@@ -1,0 +1,45 @@
+/**
+ * The file store on local disk (the one-machine default): files under a root directory, by default
+ * `.data/files` (setting FILES_DIR). Writes go to a temporary file in the same directory and are renamed into
+ * place, which POSIX makes atomic on one file system, so a reader sees the old file or the new one, never a
+ * partial one.
+ */
+import { randomUUID } from 'node:crypto';
+import { createReadStream } from 'node:fs';
+import { mkdir, rename, rm, stat, writeFile } from 'node:fs/promises';
+import path from 'node:path';
+import { fileKeySegments, type FileStore, type StoredFile } from './file-store';
+
+/** Returns a FileStore keeping files under the directory `rootDir` (made absolute; created on first write). */
+export function localDiskStore(rootDir: string): FileStore {
+  const root = path.resolve(rootDir);
+  const pathOf = (key: string) => path.join(root, ...fileKeySegments(key));
+  return {
+    async put(key, bytes) {
+      const target = pathOf(key);
+      await mkdir(path.dirname(target), { recursive: true });
+      const temp = `${target}.partial-${randomUUID()}`;
+      try {
+        await writeFile(temp, bytes);
+        await rename(temp, target);
+      } catch (err) {
+        await rm(temp, { force: true });
+        throw err;
+      }
+    },
+    async open(key): Promise<StoredFile | null> {
+      const target = pathOf(key);
+      try {
+        const info = await stat(target);
+        if (!info.isFile()) return null;
+        return { stream: createReadStream(target), sizeBytes: info.size };
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code === 'ENOENT') return null;
+        throw err;
+      }
+    },
+    async removePrefix(prefix) {
+      await rm(pathOf(prefix), { recursive: true, force: true });
+    },
+  };
+}
