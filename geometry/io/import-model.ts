@@ -35,6 +35,16 @@ function looksLikeAsciiStl(bytes: Uint8Array): boolean {
 }
 
 /**
+ * The bytes without a leading UTF-8 byte-order mark (EF BB BF), which text editors on some systems put at the
+ * start of a text file; left in place, the first statement of an OBJ (or the magic line of a PLY) would not be
+ * recognised. An exactly-sized binary STL keeps all its bytes: its 80-byte header may begin with anything.
+ */
+function withoutByteOrderMark(bytes: Uint8Array): Uint8Array {
+  const bom = bytes.length >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf;
+  return bom && !looksLikeBinaryStl(bytes) ? bytes.subarray(3) : bytes;
+}
+
+/**
  * Returns the format of a model file. Content that identifies itself wins over the extension, so a
  * mislabelled file still reads: a PLY magic line, an exactly-sized binary STL, or text starting "solid" with
  * "facet" in its first kilobyte. Otherwise the extension decides (.obj, .stl, .ply, any case); with no known
@@ -57,7 +67,7 @@ export function detectModelFormat(bytes: Uint8Array, fileName: string): ModelFor
 
 /**
  * Reads a model file's bytes into an ImportedModel with positions in millimetres. Dispatches to parseObj,
- * parseStl (ASCII or binary) or parsePly by `detectModelFormat`. `fileName` is only used for its extension
+ * parseStl (ASCII or binary) or parsePly by `detectModelFormat`, after skipping a UTF-8 byte-order mark. `fileName` is only used for its extension
  * and in messages. Throws GeometryError: EMPTY_FILE, FILE_TOO_LARGE (over `maxBytes`), UNKNOWN_FORMAT,
  * BAD_OPTION for a bad limit or unit, and every error of the parsers (with line numbers for text formats).
  * Pure: no file system; the caller reads the bytes.
@@ -77,12 +87,14 @@ export function importModel(bytes: Uint8Array, fileName: string, opts: ImportOpt
     const mb = (n: number) => (n / (1024 * 1024)).toFixed(1);
     throw new GeometryError('FILE_TOO_LARGE', `${fileName} is ${mb(bytes.length)} MB, over the ${mb(maxBytes)} MB limit`);
   }
-  const format = detectModelFormat(bytes, fileName);
+  const content = withoutByteOrderMark(bytes);
+  const format = detectModelFormat(content, fileName);
   if (!format) {
     throw new GeometryError('UNKNOWN_FORMAT', `${fileName}: not an OBJ, STL or PLY file (unknown extension and unrecognised content)`);
   }
   const limits = { maxTriangles };
-  const model = format === 'obj' ? parseObj(bytes, limits) : format === 'stl' ? parseStl(bytes, limits) : parsePly(bytes, limits);
+  const model =
+    format === 'obj' ? parseObj(content, limits) : format === 'stl' ? parseStl(content, limits) : parsePly(content, limits);
   const scale = MODEL_UNIT_MM[unit];
   if (scale !== 1) {
     const P = model.mesh.positions;

@@ -74,6 +74,33 @@ describe('the same shape in every file format gives the same pattern', () => {
   }
 });
 
+describe('regression: a UTF-8 byte-order mark at the start of a text file', () => {
+  // Editors on some systems begin a UTF-8 text file with U+FEFF encoded as EF BB BF (The Unicode Standard,
+  // §23.8 "Specials", byte order mark; from memory). It was read as part of the first statement, so an OBJ lost
+  // its first vertex and failed with a wrong "index out of range", and a PLY's magic line went unrecognised.
+  const shape = prismOver(regularPolygon(5, 25), 30);
+  const expected = summary(patternOfFile(objFile(shape), 'plain.obj', crease));
+  const bom = (content: string | Uint8Array): Uint8Array => {
+    const body = typeof content === 'string' ? new TextEncoder().encode(content) : content;
+    const out = new Uint8Array(body.length + 3);
+    out.set([0xef, 0xbb, 0xbf]);
+    out.set(body, 3);
+    return out;
+  };
+  it('OBJ, ASCII STL and ASCII PLY with a BOM read as without one', () => {
+    expect(summary(patternOfFile(bom(objFile(shape)), 'bom.obj', crease))).toEqual(expected);
+    expect(summary(patternOfFile(bom(objFile(shape, { crlf: true })), 'bom-crlf.obj', crease))).toEqual(expected);
+    expect(summary(patternOfFile(bom(stlAscii(shape)), 'bom.stl', crease))).toEqual(expected);
+    expect(summary(patternOfFile(bom(plyFile(shape, 'ascii')), 'bom.ply', crease))).toEqual(expected);
+    expect(summary(patternOfFile(bom(plyFile(shape, 'binary_little_endian')), 'bom-binary.ply', crease))).toEqual(expected);
+  });
+  it('a binary STL whose header happens to start with those bytes keeps its exact size and reads whole', () => {
+    const stl = stlBinary(shape);
+    stl.set([0xef, 0xbb, 0xbf], 0);
+    expect(summary(patternOfFile(stl, 'header.stl', crease))).toEqual(expected);
+  });
+});
+
 describe('broken files stop the command with one line naming the problem and the line', () => {
   const work = mkdtempSync(join(tmpdir(), 'reference-broken-'));
   afterAll(() => rmSync(work, { recursive: true, force: true }));
