@@ -7,8 +7,10 @@
  *   ticks then units as short ticks, in the seam's own direction, so both pieces of a seam carry the
  *   same pattern at the same place; the seam number sits in a small square just inside.
  * - bevel: a row of small triangles inside the edge pointing at it; hollow for an outside corner,
- *   solid for an inside corner; the angle and the face it is cut from are written along the edge.
- *   Where the bevel changes, a short bar across the edge carries the station's angle.
+ *   solid for an inside corner; the angle and the face it is cut from are written along the edge, in
+ *   full where the edge has room, else short ("22.5° inner"). Where the bevel changes, a short bar
+ *   across the edge carries the station's angle. Notes that would clash are moved or left off by
+ *   declutter-texts.ts; the piece label, its notes and the seam numbers always stay.
  * - score line: dash-dot line; dart: dashed line ending in a small V; texture line: a line with a
  *   half-arrow at each end.
  */
@@ -38,6 +40,16 @@ export interface DrawText {
   /** Cap-height-ish size, mm. */
   sizeMm: number;
   weight: 'bold' | 'regular' | 'mono';
+  /** Extra room kept around the text when checking for clashes, mm (e.g. the frame of a seam number). */
+  padMm?: number;
+  /** Clash order, lower first: 0 piece label, 1 piece notes, 2 seam numbers, 3 bevel notes, 4 stations. */
+  priority?: number;
+  /** Drawn even when it clashes (after the alternatives are tried): piece labels, notes, seam numbers. */
+  keep?: boolean;
+  /** Other places or shorter wordings to try, in order, when this one clashes (declutter-texts.ts). */
+  alternatives?: Array<Pick<DrawText, 'text' | 'at' | 'angleDeg' | 'companions'>>;
+  /** Lines that belong to this text and are drawn only when it is (a station's bar). */
+  companions?: DrawLine[];
 }
 
 export interface PieceDrawing {
@@ -143,19 +155,32 @@ function edgeMarks(piece: PatternPiece, edge: PieceSeamEdge, doc: PatternDoc, f:
     return upright(b[0] - a[0], b[1] - a[1]);
   };
 
-  // Match mark: ticks centred on the edge's middle, tens (long) first in the seam's direction.
+  // Match mark: ticks centred on the edge's middle, tens (long) first in the seam's direction. On an
+  // edge shorter than the run the pitch closes up to 0.8 mm so the ticks stay on their own edge.
   const { long, short } = matchTicks(edge.seam);
   const count = long + short;
-  const pitch = 1.6;
+  const pitch = count > 1 ? Math.max(0.8, Math.min(1.6, (len - 1) / (count - 1))) : 1.6;
   const start = len / 2 - ((count - 1) * pitch) / 2;
   for (let k = 0; k < count; k++) {
     const d = start + k * pitch;
     out.lines.push(line('match', [along(d, 0), along(d, k < long ? 7 : 4)]));
   }
+  // The seam number once, at the edge's middle, in a square frame turned with the edge.
   const boxC = len / 2;
   const s = 2.6;
-  out.lines.push(line('match', [along(boxC - s, 9), along(boxC + s, 9), along(boxC + s, 9 + 2 * s), along(boxC - s, 9 + 2 * s)], true));
-  out.texts.push({ layer: 'text', style: 'match', text: edge.seam, at: along(boxC, 9 + s), angleDeg: tangentAngle(boxC), sizeMm: 2.6, weight: 'bold' });
+  const theta = (tangentAngle(boxC) * Math.PI) / 180;
+  const ux: PointMm = [Math.cos(theta) * s, Math.sin(theta) * s];
+  const uy: PointMm = [-ux[1], ux[0]];
+  // The frame travels with the number: further in, or to either side, when the first spot is taken.
+  const numberAt = (d: number, inward: number) => {
+    const centre = along(d, inward);
+    const corner = (a: number, b: number): PointMm => [centre[0] + a * ux[0] + b * uy[0], centre[1] + a * ux[1] + b * uy[1]];
+    return { text: edge.seam, at: centre, angleDeg: tangentAngle(boxC), companions: [line('match', [corner(-1, -1), corner(1, -1), corner(1, 1), corner(-1, 1)], true)] };
+  };
+  // On a ragged outline the side found at the middle can be the outside a little further on, so the
+  // other side is tried too (declutter-texts.ts keeps the number inside its piece when it can).
+  const numberSpots = [9, 15, -9, -15, 21].flatMap((inward) => [numberAt(boxC, inward + Math.sign(inward) * s), numberAt(boxC - 2.5 * s, inward + Math.sign(inward) * s), numberAt(boxC + 2.5 * s, inward + Math.sign(inward) * s)]);
+  out.texts.push({ layer: 'text', style: 'match', ...numberSpots[0], sizeMm: 2.6, weight: 'bold', padMm: 1.6, priority: 2, keep: true, alternatives: numberSpots.slice(1) });
 
   // Bevel triangles and text.
   const seam = doc.seams.find((q) => q.label === edge.seam);
@@ -167,20 +192,42 @@ function edgeMarks(piece: PatternPiece, edge: PieceSeamEdge, doc: PatternDoc, f:
       out.lines.push(line('bevel', [along(d, 1.2), along(d + 1.6, 4), along(d - 1.6, 4)], true, !convex));
     }
   }
-  const text = square ? `seam ${edge.seam} · square cut` : `seam ${edge.seam} · bevel ${edge.bevelDeg.toFixed(1)}° · ${edge.bevelFace} face · ${convex ? 'outside' : 'inside'} corner`;
-  const tAt = Math.min(len * 0.28, Math.max(len / 2 - 10, 0));
-  out.texts.push({ layer: 'text', style: 'bevel', text, at: along(tAt, 7), angleDeg: tangentAngle(tAt), sizeMm: 2.1, weight: 'regular' });
+  // Bevel note: the full wording where the edge is long enough to carry it beside the number frame,
+  // else the short form (angle and face; the frame gives the seam, the triangles the corner), tried at
+  // several places along the edge; a note that clashes everywhere is left off (declutter-texts.ts).
+  const full = square ? `seam ${edge.seam} · square cut` : `seam ${edge.seam} · bevel ${edge.bevelDeg.toFixed(1)}° · ${edge.bevelFace} face · ${convex ? 'outside' : 'inside'} corner`;
+  const brief = square ? 'square cut' : `${edge.bevelDeg.toFixed(1)}° ${edge.bevelFace}`;
+  const noteSize = 2.1;
+  const fits = (text: string, room: number) => text.length * 0.48 * noteSize <= room;
+  const places: Array<Pick<DrawText, 'text' | 'at' | 'angleDeg'>> = [];
+  for (const text of [full, brief]) {
+    const half = (text.length * 0.48 * noteSize) / 2;
+    // Centres along the edge, either side of the number frame first, then over it further in.
+    const spots: Array<[number, number]> = [[boxC - s - 2 - half, 7], [boxC + s + 2 + half, 7], [boxC, 16.5], [len * 0.2, 7], [len * 0.8, 7]];
+    for (const [d, inward] of spots) {
+      if (d - half < 0 || d + half > len || !fits(text, len)) continue;
+      places.push({ text, at: along(d, inward), angleDeg: tangentAngle(d) });
+    }
+  }
+  if (places.length > 0) {
+    const [first, ...rest] = places;
+    out.texts.push({ layer: 'text', style: 'bevel', ...first, sizeMm: noteSize, weight: 'regular', priority: 3, alternatives: rest });
+  }
 
   // Stations where the bevel changes along the seam (at least 1° from the previous one shown).
   if (seam && seam.stations.length > 1 && seam.bevel.max - seam.bevel.min >= 1) {
     const scale = seam.length3d > 0 ? len / seam.length3d : 1;
     let last = Number.NaN;
+    let lastD = -Infinity;
     for (const st of seam.stations) {
       if (!Number.isNaN(last) && Math.abs(st.bevel - last) < 1) continue;
-      last = st.bevel;
       const d = Math.max(0.5, Math.min(len - 0.5, st.at * scale));
-      out.lines.push(line('station', [along(d, -1), along(d, 5)]));
-      out.texts.push({ layer: 'text', style: 'station', text: `${st.bevel.toFixed(0)}°`, at: along(d, 12.5), angleDeg: tangentAngle(d), sizeMm: 2.1, weight: 'mono' });
+      // Stations closer than 10 mm read as noise on paper; the bench card gives the seam's range.
+      if (d - lastD < 10) continue;
+      last = st.bevel;
+      lastD = d;
+      const bar = line('station', [along(d, -1), along(d, 5)]);
+      out.texts.push({ layer: 'text', style: 'station', text: `${st.bevel.toFixed(0)}°`, at: along(d, 12.5), angleDeg: tangentAngle(d), sizeMm: 2.1, weight: 'mono', priority: 4, companions: [bar] });
     }
   }
 }
@@ -199,14 +246,14 @@ export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTrans
 
   const spot = labelSpot(piece.outline, piece.holes);
   const size = Math.max(3, Math.min(14, spot.room * 0.8));
-  out.texts.push({ layer: 'text', style: 'label', text: piece.label, at: f(spot.at), angleDeg: 0, sizeMm: size, weight: 'bold' });
+  out.texts.push({ layer: 'text', style: 'label', text: piece.label, at: f(spot.at), angleDeg: 0, sizeMm: size, weight: 'bold', priority: 0, keep: true });
   const infoSize = Math.max(1.8, Math.min(3, size / 3));
   const info = [`${piece.thickness} mm`, `×${piece.quantity}`];
   if (piece.mirrored) info.push('mirror one');
   if (t.mirrored) info.push('mirrored');
   if (note) info.push(note);
   const c = f(spot.at);
-  out.texts.push({ layer: 'text', style: 'info', text: info.join(' · '), at: [c[0], c[1] - size * 0.75 - infoSize], angleDeg: 0, sizeMm: infoSize, weight: 'regular' });
+  out.texts.push({ layer: 'text', style: 'info', text: info.join(' · '), at: [c[0], c[1] - size * 0.75 - infoSize], angleDeg: 0, sizeMm: infoSize, weight: 'regular', priority: 1, keep: true });
 
   for (const e of piece.seamEdges ?? []) edgeMarks(piece, e, doc, f, out);
   for (const sl of piece.scoreLines ?? []) {
@@ -216,7 +263,11 @@ export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTrans
     const half = pointAlongPath(sl.path, pathLengthMm(sl.path) / 2);
     const a = f(half.p);
     const b = f([half.p[0] + half.tangent[0], half.p[1] + half.tangent[1]]);
-    out.texts.push({ layer: 'text', style: 'score', text: `score on inner face · fold ${sl.foldDeg.toFixed(0)}°`, at: f([half.p[0] - half.tangent[1] * 3, half.p[1] + half.tangent[0] * 3]), angleDeg: upright(b[0] - a[0], b[1] - a[1]), sizeMm: 2, weight: 'regular' });
+    const side = (k: number) => f([half.p[0] - half.tangent[1] * k, half.p[1] + half.tangent[0] * k]);
+    const angleDeg = upright(b[0] - a[0], b[1] - a[1]);
+    const full = `score on inner face · fold ${sl.foldDeg.toFixed(0)}°`;
+    const brief = `score ${sl.foldDeg.toFixed(0)}°`;
+    out.texts.push({ layer: 'text', style: 'score', text: full, at: side(3), angleDeg, sizeMm: 2, weight: 'regular', priority: 3, alternatives: [{ text: full, at: side(-3), angleDeg }, { text: brief, at: side(3), angleDeg }, { text: brief, at: side(-3), angleDeg }] });
   }
   for (const d of piece.darts ?? []) {
     if (d.path.length < 2) continue;
@@ -228,7 +279,7 @@ export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTrans
     const uy = (end[1] - prev[1]) / L;
     out.lines.push(line('dart', [f([end[0] - ux * 3 - uy * 2, end[1] - uy * 3 + ux * 2]), f(end), f([end[0] - ux * 3 + uy * 2, end[1] - uy * 3 - ux * 2])]));
     const s0 = d.path[0];
-    out.texts.push({ layer: 'text', style: 'dart', text: `dart: cut to the V · leaves ${d.stretchAfterPct.toFixed(1)} % stretch`, at: f([s0[0] - ux * 4, s0[1] - uy * 4]), angleDeg: 0, sizeMm: 2, weight: 'regular' });
+    out.texts.push({ layer: 'text', style: 'dart', text: `dart: cut to the V · leaves ${d.stretchAfterPct.toFixed(1)} % stretch`, at: f([s0[0] - ux * 4, s0[1] - uy * 4]), angleDeg: 0, sizeMm: 2, weight: 'regular', priority: 1, keep: true });
   }
   if (piece.textureLine && piece.textureLine.length >= 2) {
     const [p0, p1] = piece.textureLine;
@@ -240,7 +291,7 @@ export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTrans
     out.lines.push(line('texture', [f(p0), f([p0[0] + ux * 4 - uy * 2, p0[1] + uy * 4 + ux * 2])]));
     const a = f(p0);
     const b = f(p1);
-    out.texts.push({ layer: 'text', style: 'texture', text: 'texture side up along this line', at: f([(p0[0] + p1[0]) / 2 - uy * 3, (p0[1] + p1[1]) / 2 + ux * 3]), angleDeg: upright(b[0] - a[0], b[1] - a[1]), sizeMm: 2, weight: 'regular' });
+    out.texts.push({ layer: 'text', style: 'texture', text: 'texture side up along this line', at: f([(p0[0] + p1[0]) / 2 - uy * 3, (p0[1] + p1[1]) / 2 + ux * 3]), angleDeg: upright(b[0] - a[0], b[1] - a[1]), sizeMm: 2, weight: 'regular', priority: 1, keep: true });
   }
   return out;
 }

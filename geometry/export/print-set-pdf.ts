@@ -5,22 +5,21 @@
  * - 'piece-per-page': each piece on its own page (or its own tiles when bigger than a page);
  * - 'stock-sheet': each stock sheet of the sheet plan on one page of the sheet's size (large-format print
  *   or projector), every copy where the plan puts it.
- * Every page carries its row/column label, the print-set name and the 100 mm and 4 in check squares.
+ * Every page carries its row/column label, the print-set name and the 100 mm and 4 in check squares,
+ * placed where they hide no piece (print-set-pages.ts).
  * Scale: 1 mm = 72/25.4 pt (ISO 32000-1 §8.3.2.3 user space unit of 1/72 in).
  */
 import { GeometryError } from '../errors';
-import { sharedAreaMm2 } from '../layout/clipper-paths';
-import { boundsOf, placeRing, type BoundsMm } from '../layout/outline-transform';
 import type { SheetPlan } from '../layout/plan-sheets';
 import type { PatternDoc, PointMm } from '../pattern/pattern-doc';
-import { arrangeTemplates, templateRotationDeg } from './arrange-templates';
 import { pageSize, type PageSize } from './page-sizes';
-import { drawAlignmentMark, drawScaleSquares, PdfCanvas, STYLE_PEN, type PdfFonts } from './pdf-canvas';
-import { pieceDrawing, type PieceDrawing } from './piece-drawing';
+import { drawAlignmentMark, drawScaleSquares, PdfCanvas, PT_PER_MM, STYLE_PEN, type PdfFonts } from './pdf-canvas';
+import { printSetPages, type PrintArea, type PrintMode } from './print-set-pages';
 import { SAFETY_NOTES } from './safety-notes';
-import { drawingToPage, tilePages, type Tile, type TileGrid } from './tile-pages';
+import { SCALE_SQUARE_SIDE_MM as SQUARE_SIDE } from './scale-square-spot';
+import { drawingToPage, type Tile } from './tile-pages';
 
-export type PrintMode = 'tiled' | 'piece-per-page' | 'stock-sheet';
+export type { PrintMode } from './print-set-pages';
 
 export interface PrintSetPdfOptions {
   page: string;
@@ -31,94 +30,8 @@ export interface PrintSetPdfOptions {
   overlapMm?: number;
 }
 
-interface Area {
-  title: string;
-  widthMm: number;
-  heightMm: number;
-  drawings: PieceDrawing[];
-  /** Piece label and its box in drawing mm, for the page map. */
-  boxes: Array<{ label: string; box: BoundsMm; outline: PointMm[] }>;
-  grid: TileGrid;
-}
-
-const SQUARE_SIDE = 4 * 25.4;
-
-function drawingBox(d: PieceDrawing): BoundsMm {
-  return boundsOf(...d.lines.map((l) => l.points));
-}
-
-function buildAreas(doc: PatternDoc, plan: SheetPlan, opts: PrintSetPdfOptions): Area[] {
-  const tile = { marginMm: opts.marginMm, overlapMm: opts.overlapMm };
-  if (opts.mode === 'tiled') {
-    const arr = arrangeTemplates(doc, opts.page, tile);
-    const drawings = arr.items.map((it) => pieceDrawing(it.piece, doc, it.transform));
-    return [{ title: 'templates', widthMm: arr.widthMm, heightMm: arr.heightMm, drawings, grid: arr.grid, boxes: drawings.map((d, i) => ({ label: arr.items[i].piece.label, box: drawingBox(d), outline: d.lines[0].points })) }];
-  }
-  if (opts.mode === 'piece-per-page') {
-    return doc.pieces.map((piece) => {
-      const rotationDeg = templateRotationDeg(piece);
-      const b = boundsOf(placeRing(piece.outline, { mirrored: false, rotationDeg, x: 0, y: 0 }));
-      const border = 14;
-      const t = { mirrored: false, rotationDeg, x: border - b.minX, y: border - b.minY };
-      const d = pieceDrawing(piece, doc, t);
-      const widthMm = b.maxX - b.minX + 2 * border;
-      const heightMm = b.maxY - b.minY + 2 * border;
-      return { title: `piece ${piece.label}`, widthMm, heightMm, drawings: [d], grid: tilePages({ widthMm, heightMm }, opts.page, tile), boxes: [{ label: piece.label, box: drawingBox(d), outline: d.lines[0].points }] };
-    });
-  }
-  const margin = opts.marginMm ?? 6;
-  const header = 9;
-  return plan.sheets.map((s, si) => {
-    const drawings: PieceDrawing[] = [];
-    const boxes: Area['boxes'] = [];
-    for (const pl of plan.placements.filter((p) => p.sheetIndex === si)) {
-      const piece = doc.pieces.find((q) => q.label === pl.pieceLabel);
-      if (!piece) throw new GeometryError('EXPORT_FAILED', `the sheet plan places piece ${pl.pieceLabel}, which is not in the pattern`);
-      const d = pieceDrawing(piece, doc, pl, pl.spare ? `spare ${pl.copy}` : `copy ${pl.copy}`);
-      drawings.push(d);
-      boxes.push({ label: pl.pieceLabel, box: drawingBox(d), outline: pl.outline });
-    }
-    const page: PageSize = { name: 'a4', orientation: 'portrait', widthMm: s.widthMm + 2 * margin, heightMm: s.heightMm + 2 * margin + header };
-    const grid: TileGrid = {
-      page,
-      marginMm: margin,
-      overlapMm: 0,
-      headerMm: header,
-      window: { left: margin, top: margin + header, width: s.widthMm, height: s.heightMm },
-      rows: 1,
-      cols: 1,
-      tiles: [{ row: 0, col: 0, x0: 0, yTop: s.heightMm, marks: [] }],
-    };
-    return { title: `stock sheet ${si + 1} · ${s.thicknessMm} mm · ${s.widthMm.toFixed(0)}×${s.heightMm.toFixed(0)} mm`, widthMm: s.widthMm, heightMm: s.heightMm, drawings, boxes, grid };
-  });
-}
-
 function tileName(t: Tile): string {
   return `R${t.row + 1}·C${t.col + 1}`;
-}
-
-/** Lower-left corner (page mm) for the check squares: the window corner whose square covers the least piece area. */
-function squareCorner(grid: TileGrid, tile: Tile, area: Area): PointMm {
-  const w = grid.window;
-  const inset = 3;
-  const corners: PointMm[] = [
-    [w.left + w.width - SQUARE_SIDE - inset, w.top + w.height - inset],
-    [w.left + inset, w.top + w.height - inset],
-    [w.left + w.width - SQUARE_SIDE - inset, w.top + SQUARE_SIDE + inset],
-    [w.left + inset, w.top + SQUARE_SIDE + inset],
-  ];
-  let best = corners[0];
-  let bestCost = Infinity;
-  for (const c of corners) {
-    const sq: PointMm[] = [[c[0], c[1]], [c[0] + SQUARE_SIDE, c[1]], [c[0] + SQUARE_SIDE, c[1] - SQUARE_SIDE], [c[0], c[1] - SQUARE_SIDE]];
-    let cost = 0;
-    for (const b of area.boxes) cost += sharedAreaMm2(sq, b.outline.map((p) => drawingToPage(grid, tile, p)));
-    if (cost < bestCost - 1e-6) {
-      bestCost = cost;
-      best = c;
-    }
-  }
-  return best;
 }
 
 function header(c: PdfCanvas, page: PageSize, margin: number, left: string, right: string): void {
@@ -134,7 +47,7 @@ function drawLegend(c: PdfCanvas, x: number, y: number, width: number): number {
       c.polyline([[cx, cy + 3], [cx + 14, cy + 3]], STYLE_PEN.cut);
       [7, 4, 4].forEach((h, i) => c.polyline([[cx + 5.4 + i * 1.6, cy + 3], [cx + 5.4 + i * 1.6, cy + 3 - h]], STYLE_PEN.match));
     }],
-    ['Bevel, outside corner: hollow triangles point at the edge to bevel; the angle and the face it comes off are written along the edge.', (cx, cy) => {
+    ['Bevel, outside corner: hollow triangles point at the edge to bevel; the angle and the face it comes off are written along the edge (on a short edge only the angle and face, e.g. "22.5° inner").', (cx, cy) => {
       c.polyline([[cx, cy + 3], [cx + 14, cy + 3]], STYLE_PEN.cut);
       for (const k of [3, 10]) c.polyline([[cx + k, cy + 1.8], [cx + k + 1.6, cy - 1], [cx + k - 1.6, cy - 1]], STYLE_PEN.bevel, true);
     }],
@@ -161,7 +74,7 @@ function drawLegend(c: PdfCanvas, x: number, y: number, width: number): number {
   return yy - y;
 }
 
-function drawCover(c: PdfCanvas, doc: PatternDoc, plan: SheetPlan, areas: Area[], pageNo: Map<Area, number>, page: PageSize, name: string, total: number, mode: PrintMode): void {
+function drawCover(c: PdfCanvas, doc: PatternDoc, plan: SheetPlan, areas: PrintArea[], pageNo: Map<PrintArea, number>, page: PageSize, name: string, total: number, mode: PrintMode): void {
   const m = 6;
   c.addPage(page.widthMm, page.heightMm);
   header(c, page, m, `${name} · first page · page map`, `page 1 of ${total}`);
@@ -173,40 +86,58 @@ function drawCover(c: PdfCanvas, doc: PatternDoc, plan: SheetPlan, areas: Area[]
   y += c.para(`Mode: ${mode}. Pieces: ${pieces}`, [m, y], W, 7) + 2;
   y += c.para(`Foam: ${plan.byThickness.map((t) => `${t.thicknessMm} mm: ${t.sheets} sheet${t.sheets === 1 ? '' : 's'}, ${t.usedPct.toFixed(0)} % used`).join('; ')}.`, [m, y], W, 7) + 2;
 
-  // Page map: the drawing of each area scaled into a box, tiles outlined and named with their page number.
+  // Page map: each area's drawing scaled into a box, tiles outlined and named with their page number
+  // in type big enough to read at 100 %; with many areas (one per piece) a list of pages instead.
   const mapBottom = page.heightMm - m - SQUARE_SIDE - 6;
   const mapTop = y + 2;
   c.para('Page map', [m, mapTop], W, 9, 'bold');
   const boxTop = mapTop + 5;
-  const cols = Math.min(areas.length, 4);
-  const rowsN = Math.ceil(areas.length / cols);
-  const cellW = W / cols;
-  const cellH = Math.max(20, (mapBottom - boxTop) / rowsN);
-  areas.forEach((a, i) => {
-    const gx = m + (i % cols) * cellW;
-    const gy = boxTop + Math.floor(i / cols) * cellH;
-    const g = a.grid;
-    const fullW = g.cols * (g.window.width - g.overlapMm) + g.overlapMm;
-    const fullH = g.rows * (g.window.height - g.overlapMm) + g.overlapMm;
-    const s = Math.min((cellW - 4) / fullW, (cellH - 8) / fullH);
-    const top = a.heightMm;
-    const map = (p: PointMm): PointMm => [gx + 2 + p[0] * s, gy + 6 + (top - p[1]) * s];
-    c.text(`${a.title} · from page ${pageNo.get(a)}`, [gx + cellW / 2, gy + 2.5], 2.4, 'bold');
-    for (const t of g.tiles) {
-      const x0 = t.x0;
-      const x1 = t.x0 + g.window.width;
-      const y0 = t.yTop;
-      const y1 = t.yTop - g.window.height;
-      c.polyline([map([x0, y0]), map([x1, y0]), map([x1, y1]), map([x0, y1])], STYLE_PEN.grid, true);
-      const ctr = map([(x0 + x1) / 2, (y0 + y1) / 2]);
-      c.text(`${tileName(t)} p${(pageNo.get(a) ?? 0) + g.tiles.indexOf(t)}`, [ctr[0], ctr[1] - Math.min(8, (g.window.height * s) / 2 - 2)], 1.9, 'mono', '#777777');
-    }
-    for (const b of a.boxes) {
-      c.polyline(b.outline.map(map), { color: '#1b1b1b', widthPt: 0.4 }, true);
-      const cc = map([(b.box.minX + b.box.maxX) / 2, (b.box.minY + b.box.maxY) / 2]);
-      c.text(b.label, cc, 2.8, 'bold');
-    }
-  });
+  if (areas.length > 6) {
+    const lines = areas.map((a) => {
+      const first = pageNo.get(a) ?? 0;
+      const n = a.grid.tiles.length;
+      return `${a.title}: page${n > 1 ? `s ${first}–${first + n - 1}` : ` ${first}`}${n > 1 ? ` (${a.grid.rows} × ${a.grid.cols})` : ''}`;
+    });
+    const colsN = Math.max(1, Math.min(4, Math.ceil((lines.length * 4.2) / Math.max(20, mapBottom - boxTop))));
+    const perCol = Math.ceil(lines.length / colsN);
+    const colW = W / colsN;
+    lines.forEach((l, i) => c.para(l, [m + Math.floor(i / perCol) * colW, boxTop + (i % perCol) * 4.2], colW - 2, 8, 'regular'));
+  } else {
+    const cols = Math.min(areas.length, 2);
+    const rowsN = Math.ceil(areas.length / cols);
+    const cellW = W / cols;
+    const cellH = Math.max(30, (mapBottom - boxTop) / rowsN);
+    areas.forEach((a, i) => {
+      const gx = m + (i % cols) * cellW;
+      const gy = boxTop + Math.floor(i / cols) * cellH;
+      const g = a.grid;
+      const fullW = g.cols * (g.window.width - g.overlapMm) + g.overlapMm;
+      const fullH = g.rows * (g.window.height - g.overlapMm) + g.overlapMm;
+      const sc = Math.min((cellW - 4) / fullW, (cellH - 9) / fullH);
+      const top = a.heightMm;
+      const map = (p: PointMm): PointMm => [gx + 2 + p[0] * sc, gy + 7 + (top - p[1]) * sc];
+      c.text(`${a.title} · from page ${pageNo.get(a)}`, [gx + cellW / 2, gy + 2.8], 3.2, 'bold');
+      for (const b of a.boxes) {
+        c.polyline(b.outline.map(map), { color: '#8a8a8a', widthPt: 0.4 }, true);
+        const cc = map([(b.box.minX + b.box.maxX) / 2, (b.box.minY + b.box.maxY) / 2]);
+        const size = Math.max(2.2, Math.min(4, Math.min(b.box.maxX - b.box.minX, b.box.maxY - b.box.minY) * sc * 0.45));
+        c.text(b.label, cc, size, 'bold', '#3a3a3a');
+      }
+      for (const t of g.tiles) {
+        const a0 = map([t.x0, t.yTop]);
+        const a1 = map([t.x0 + g.window.width, t.yTop - g.window.height]);
+        c.polyline([a0, [a1[0], a0[1]], a1, [a0[0], a1[1]]], { color: '#1f4e9a', widthPt: 0.6 }, true);
+        // Label in the tile's own corner, past the overlap band it shares with its neighbours.
+        const label = `p${(pageNo.get(a) ?? 0) + g.tiles.indexOf(t)} · ${tileName(t)}`;
+        const size = Math.max(2.8, Math.min(5, (a1[0] - a0[0]) * 0.09));
+        const w = c.pdf.font('bold').fontSize(size * PT_PER_MM).widthOfString(label) / PT_PER_MM;
+        const ov = g.overlapMm * sc;
+        const at: PointMm = [a0[0] + ov + 1 + w / 2, a0[1] + ov + 1 + size * 0.6];
+        c.pdf.save().rect((at[0] - w / 2 - 0.8) * PT_PER_MM, (at[1] - size * 0.65) * PT_PER_MM, (w + 1.6) * PT_PER_MM, size * 1.3 * PT_PER_MM).fill('#ffffff').restore();
+        c.text(label, at, size, 'bold', '#1f4e9a');
+      }
+    });
+  }
 
   const lower = page.heightMm - m - SQUARE_SIDE - 2;
   const colW = W - SQUARE_SIDE - 4;
@@ -230,8 +161,8 @@ export async function printSetPdf(doc: PatternDoc, plan: SheetPlan, opts: PrintS
   if (doc.pieces.length === 0) throw new GeometryError('EXPORT_FAILED', 'the pattern has no pieces to print');
   const name = opts.name ?? doc.name ?? 'Sheetsmith print set';
   const c = new PdfCanvas(opts.fonts, name);
-  const areas = buildAreas(doc, plan, opts);
-  const pageNo = new Map<Area, number>();
+  const { areas, pages } = printSetPages(doc, plan, opts);
+  const pageNo = new Map<PrintArea, number>();
   let n = 2;
   for (const a of areas) {
     pageNo.set(a, n);
@@ -240,30 +171,34 @@ export async function printSetPdf(doc: PatternDoc, plan: SheetPlan, opts: PrintS
   const total = n - 1;
   drawCover(c, doc, plan, areas, pageNo, cover, name, total, opts.mode);
 
-  for (const a of areas) {
+  pages.forEach(({ area: a, tile: t, squareCorner }, k) => {
     const g = a.grid;
-    g.tiles.forEach((t, i) => {
-      const page = g.page;
-      c.addPage(page.widthMm, page.heightMm);
-      const w = g.window;
-      header(c, page, g.marginMm, `${tileName(t)}  ·  row ${t.row + 1} of ${g.rows}, column ${t.col + 1} of ${g.cols}  ·  ${name} · ${a.title}`, `page ${(pageNo.get(a) ?? 0) + i} of ${total} · print at 100 %`);
-      const toPage = (p: PointMm) => drawingToPage(g, t, p);
-      c.clipRect(w.left, w.top, w.width, w.height);
-      for (const d of a.drawings) {
-        for (const l of d.lines) c.line(l, toPage);
-        for (const tx of d.texts) c.drawText(tx, toPage);
-      }
-      c.unclip();
-      // Overlap bands: dashed line where the neighbouring page's window ends.
-      const ov = g.overlapMm;
-      if (t.col > 0) c.polyline([[w.left + ov, w.top], [w.left + ov, w.top + w.height]], STYLE_PEN.grid);
-      if (t.col < g.cols - 1) c.polyline([[w.left + w.width - ov, w.top], [w.left + w.width - ov, w.top + w.height]], STYLE_PEN.grid);
-      if (t.row > 0) c.polyline([[w.left, w.top + ov], [w.left + w.width, w.top + ov]], STYLE_PEN.grid);
-      if (t.row < g.rows - 1) c.polyline([[w.left, w.top + w.height - ov], [w.left + w.width, w.top + w.height - ov]], STYLE_PEN.grid);
-      for (const mk of t.marks) drawAlignmentMark(c, toPage(mk.at), mk.id.split('.').slice(0, 2).join('.'));
-      c.polyline([[w.left, w.top], [w.left + w.width, w.top], [w.left + w.width, w.top + w.height], [w.left, w.top + w.height]], { color: '#bbbbbb', widthPt: 0.3 }, true);
-      drawScaleSquares(c, ...squareCorner(g, t, a));
-    });
-  }
+    const page = g.page;
+    c.addPage(page.widthMm, page.heightMm);
+    const w = g.window;
+    header(c, page, g.marginMm, `${tileName(t)}  ·  row ${t.row + 1} of ${g.rows}, column ${t.col + 1} of ${g.cols}  ·  ${name} · ${a.title}`, `page ${k + 2} of ${total} · print at 100 %`);
+    const toPage = (p: PointMm) => drawingToPage(g, t, p);
+    c.clipRect(w.left, w.top, w.width, w.height);
+    for (const d of a.drawings) {
+      for (const l of d.lines) c.line(l, toPage);
+      for (const tx of d.texts) c.drawText(tx, toPage);
+    }
+    c.unclip();
+    // Overlap bands: dashed line where the neighbouring page's window ends.
+    const ov = g.overlapMm;
+    if (t.col > 0) c.polyline([[w.left + ov, w.top], [w.left + ov, w.top + w.height]], STYLE_PEN.grid);
+    if (t.col < g.cols - 1) c.polyline([[w.left + w.width - ov, w.top], [w.left + w.width - ov, w.top + w.height]], STYLE_PEN.grid);
+    if (t.row > 0) c.polyline([[w.left, w.top + ov], [w.left + w.width, w.top + ov]], STYLE_PEN.grid);
+    if (t.row < g.rows - 1) c.polyline([[w.left, w.top + w.height - ov], [w.left + w.width, w.top + w.height - ov]], STYLE_PEN.grid);
+    for (const mk of t.marks) drawAlignmentMark(c, toPage(mk.at), mk.id.split('.').slice(0, 2).join('.'));
+    c.polyline([[w.left, w.top], [w.left + w.width, w.top], [w.left + w.width, w.top + w.height], [w.left, w.top + w.height]], { color: '#bbbbbb', widthPt: 0.3 }, true);
+    if (g.reserved) {
+      const r = g.reserved;
+      const note = 'strip kept clear for the scale check: nothing to cut here';
+      if (r.width >= r.height) c.text(note, [r.left + SQUARE_SIDE + 4 + (r.width - SQUARE_SIDE - 4) / 2, r.top + r.height / 2], 2.4, 'regular', '#777777');
+      else c.text(note, [r.left + r.width / 2, r.top + SQUARE_SIDE + 8 + (r.height - SQUARE_SIDE - 8) / 2], 2.4, 'regular', '#777777', 90);
+    }
+    drawScaleSquares(c, squareCorner[0], squareCorner[1]);
+  });
   return c.finish();
 }

@@ -18,6 +18,20 @@ export interface TileOptions {
   headerMm?: number;
   /** Force an orientation instead of choosing the one with fewer pages. */
   orientation?: PageOrientation;
+  /**
+   * Depth of a strip kept free of drawing at the far end of the page's long side (bottom of a portrait
+   * page, right of a landscape one), mm; room for the scale-check squares when no tile has a free spot.
+   * Default 0 (no strip).
+   */
+  reserveMm?: number;
+}
+
+/** A page rectangle, mm from the page's top-left corner, y down. */
+export interface PageRectMm {
+  left: number;
+  top: number;
+  width: number;
+  height: number;
 }
 
 export interface AlignmentMark {
@@ -42,7 +56,9 @@ export interface TileGrid {
   overlapMm: number;
   headerMm: number;
   /** Drawing window on each page: left/top in page mm, width/height mm. */
-  window: { left: number; top: number; width: number; height: number };
+  window: PageRectMm;
+  /** The strip kept free of drawing (TileOptions.reserveMm), or null. */
+  reserved: PageRectMm | null;
   rows: number;
   cols: number;
   tiles: Tile[];
@@ -53,10 +69,18 @@ export function drawingToPage(grid: TileGrid, tile: Tile, p: PointMm): PointMm {
   return [grid.window.left + (p[0] - tile.x0), grid.window.top + (tile.yTop - p[1])];
 }
 
-function gridFor(area: { widthMm: number; heightMm: number }, page: PageSize, margin: number, overlap: number, header: number): TileGrid {
+function gridFor(area: { widthMm: number; heightMm: number }, page: PageSize, margin: number, overlap: number, header: number, reserve: number): TileGrid {
   const window = { left: margin, top: margin + header, width: page.widthMm - 2 * margin, height: page.heightMm - 2 * margin - header };
+  let reserved: PageRectMm | null = null;
+  if (reserve > 0 && page.orientation === 'portrait') {
+    window.height -= reserve;
+    reserved = { left: window.left, top: window.top + window.height, width: window.width, height: reserve };
+  } else if (reserve > 0) {
+    window.width -= reserve;
+    reserved = { left: window.left + window.width, top: window.top, width: reserve, height: window.height };
+  }
   if (window.width <= overlap + 1 || window.height <= overlap + 1) {
-    throw new GeometryError('BAD_OPTION', `page ${page.name} leaves no room to draw with a ${margin} mm margin and a ${overlap} mm overlap`);
+    throw new GeometryError('BAD_OPTION', `page ${page.name} leaves no room to draw with a ${margin} mm margin, a ${overlap} mm overlap${reserve > 0 ? ` and a ${reserve} mm strip for the check squares` : ''}`);
   }
   const stepX = window.width - overlap;
   const stepY = window.height - overlap;
@@ -83,12 +107,13 @@ function gridFor(area: { widthMm: number; heightMm: number }, page: PageSize, ma
       tiles.push({ row: r, col: c, x0, yTop, marks });
     }
   }
-  return { page, marginMm: margin, overlapMm: overlap, headerMm: header, window, rows, cols, tiles };
+  return { page, marginMm: margin, overlapMm: overlap, headerMm: header, window, reserved, rows, cols, tiles };
 }
 
 /**
  * Tiles a drawing of `area` (mm) onto pages of `pageName`. Returns the grid (rows × cols tiles) in the
- * orientation that needs fewer pages (portrait on a tie) unless one is forced. Throws
+ * orientation that needs fewer pages (portrait on a tie) unless one is forced; with `reserveMm` each
+ * page keeps a strip free of drawing (TileOptions). Throws
  * GeometryError('BAD_OPTION') for an unknown page size, a non-positive area, or margins that leave no
  * room on the page.
  */
@@ -96,12 +121,13 @@ export function tilePages(area: { widthMm: number; heightMm: number }, pageName:
   const margin = opts.marginMm ?? 6;
   const overlap = opts.overlapMm ?? 10;
   const header = opts.headerMm ?? 9;
+  const reserve = opts.reserveMm ?? 0;
   if (!(area.widthMm > 0 && area.heightMm > 0)) throw new GeometryError('BAD_OPTION', `drawing area must be positive, got ${area.widthMm}×${area.heightMm} mm`);
-  if (!(margin >= 0 && overlap >= 0 && header >= 0)) throw new GeometryError('BAD_OPTION', 'margin, overlap and header must be 0 mm or more');
+  if (!(margin >= 0 && overlap >= 0 && header >= 0 && reserve >= 0)) throw new GeometryError('BAD_OPTION', 'margin, overlap, header and reserved strip must be 0 mm or more');
   const options: PageOrientation[] = opts.orientation ? [opts.orientation] : ['portrait', 'landscape'];
   let best: TileGrid | null = null;
   for (const o of options) {
-    const g = gridFor(area, pageSize(pageName, o), margin, overlap, header);
+    const g = gridFor(area, pageSize(pageName, o), margin, overlap, header, reserve);
     if (!best || g.rows * g.cols < best.rows * best.cols) best = g;
   }
   return best as TileGrid;

@@ -67,6 +67,19 @@ describe('tilePages', () => {
     }
   });
 
+  it('keeps a strip for the check squares clear of the drawing window, and still reassembles', () => {
+    // A4 portrait (ISO 216, 210×297 mm) with 6 mm margins and a 9 mm header: window 198×276 mm; a
+    // 110 mm strip leaves 198×166 mm and sits right under the window.
+    const g = tilePages({ widthMm: 700, heightMm: 600 }, 'a4', { reserveMm: 110, orientation: 'portrait' });
+    expect(g.window.height).toBeCloseTo(276 - 110, 9);
+    expect(g.reserved).toEqual({ left: 6, top: 15 + 166, width: 198, height: 110 });
+    expect(g.reserved!.top + g.reserved!.height).toBeCloseTo(297 - 6, 9);
+    const land = tilePages({ widthMm: 700, heightMm: 600 }, 'a4', { reserveMm: 110, orientation: 'landscape' });
+    expect(land.window.width).toBeCloseTo(285 - 110, 9);
+    expect(reassemble(g).size).toBe(g.tiles.length);
+    expect(() => tilePages({ widthMm: 100, heightMm: 100 }, 'a4', { reserveMm: 280, orientation: 'portrait' })).toThrow(/no room to draw.*280 mm strip for the check squares/);
+  });
+
   it('puts every alignment mark inside the overlap band of both pages that print it', () => {
     const grid = tilePages({ widthMm: 700, heightMm: 600 }, 'a4');
     const seen = new Map<string, number>();
