@@ -70,6 +70,24 @@ describe('regular prisms with crease seams', () => {
   }
 });
 
+describe('a prism over a scalene triangle', () => {
+  it('three different side templates, and the two caps as one template cut twice, once mirrored', () => {
+    // Sides 50, √(35² + 30²) and √(15² + 30²) (Pythagoras). Seen from outside, the bottom cap is the top cap
+    // turned over: congruent only by a reflection, as a scalene triangle has no mirror line (elementary geometry).
+    const doc = creasePattern(prismOver([[0, 0], [50, 0], [15, 30]], 40));
+    const sides = doc.pieces.filter((p) => p.outline.length === 4);
+    expect(sides.map((p) => p.area2d / 40).sort((a, b) => a - b).map((x) => Number(x.toFixed(6)))).toEqual(
+      [Math.hypot(15, 30), Math.hypot(35, 30), 50].map((x) => Number(x.toFixed(6))),
+    );
+    for (const p of sides) expect(p.quantity).toBe(1);
+    const cap = doc.pieces.find((p) => p.outline.length === 3)!;
+    expect(cap.area2d).toBeCloseTo((50 * 30) / 2, 6);
+    expect(cap.quantity).toBe(2);
+    expect(cap.mirrored).toBe(true);
+    expect(cap.mirroredCopies).toBe(1);
+  });
+});
+
 describe('the square pyramid J1 (all edges equal)', () => {
   // Dihedral angles from the square pyramid J1 table of Johnson solids: triangle–triangle arccos(−1/3) =
   // 109.4712°, triangle–square arctan(√2) = 54.7356°.

@@ -69,7 +69,8 @@ function everyNumber(value: unknown, path: string, visit: (n: number, path: stri
  * - area2d/area3d within the range the reported stretch allows: each triangle's area scales by σ1·σ2, and
  *   |σ − 1| ≤ maxPct/100, so the ratio lies in [(1 − m)², (1 + m)²];
  * - both 2D seam lengths equal the 3D length within the piece stretch (and a small absolute slack);
- * - stations run from 0 to the seam length, strictly increasing; bevel = |180 − dihedral|/2 (common joinery
+ * - stations run from 0 to the seam length, strictly increasing, 25 mm apart between the ends when there are
+ *   more than the two ends (issue 3 point 7); bevel = |180 − dihedral|/2 (common joinery
  *   practice), min ≤ mean ≤ max, convex iff the mean dihedral is below 180.
  */
 export function expectPatternInvariants(doc: PatternDoc): void {
@@ -113,6 +114,7 @@ export function expectPatternInvariants(doc: PatternDoc): void {
     expect(s.stations[0].at).toBe(0);
     expect(s.stations[s.stations.length - 1].at).toBeCloseTo(s.length3d, 9);
     for (let i = 1; i < s.stations.length; i++) expect(s.stations[i].at).toBeGreaterThan(s.stations[i - 1].at);
+    for (let i = 1; i + 1 < s.stations.length; i++) expect(s.stations[i].at).toBeCloseTo(25 * i, 9);
     for (const st of s.stations) {
       if (st.dihedral !== undefined) expect(st.bevel).toBeCloseTo(Math.abs(180 - st.dihedral) / 2, 9);
       expect(st.bevel).toBeGreaterThanOrEqual(s.bevel.min - 1e-9);
