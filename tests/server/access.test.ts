@@ -6,13 +6,26 @@
  * Status meanings follow RFC 9110 §15: 401 when no valid credentials were given, 403 when the credentials are
  * understood but not allowed.
  */
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import express from 'express';
+import type PgBoss from 'pg-boss';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROUTE_ACCESS, type AccessRule, type HttpMethod, type RouteAccess } from '../../server/auth/access';
 import { buildParams, shopParams } from '../../server/http/params';
 import { defineRoute, mountRoutes, type AccessGuard } from '../../server/http/define-route';
-import { insertBuild, makeShopFixture, makeTestApp, PERSONAS, uniqueEmail, FIXTURE_PASSWORD, type Persona, type ShopFixture, type TestContext } from './helpers';
+import { pgBossJobSender } from '../../server/jobs/job-sender';
+import { startQueue, stopQueue } from '../../server/jobs/queue';
+import { createLogger } from '../../server/logger';
+import { printSetFileKey } from '../../server/print-sets/print-set-files';
+import { printSetFileParams, printSetParams } from '../../server/print-sets/print-set-request';
+import type { FileStore } from '../../server/storage/file-store';
+import { localDiskStore } from '../../server/storage/local-disk-store';
+import { printSets } from '../../db/schema';
+import { piece, rectangle } from '../fixtures/pattern-docs/shape-docs';
+import { insertBuild, makeShopFixture, makeTestApp, PERSONAS, uniqueEmail, FIXTURE_PASSWORD, TEST_DATABASE_URL, type Persona, type ShopFixture, type TestContext } from './helpers';
 
 type Outcome = '2xx' | '401' | '403';
 
@@ -33,23 +46,57 @@ function expected(rule: AccessRule, method: HttpMethod, persona: Persona): Outco
 }
 
 function buildOrShopParams(path: string) {
+  if (path.includes(':fileName')) return printSetFileParams;
+  if (path.includes(':printSetId')) return printSetParams;
   return path.includes(':buildId') ? buildParams : shopParams;
 }
 
 let ctx: TestContext;
 let fx: ShopFixture;
+let boss: PgBoss;
+let files: FileStore;
 beforeAll(async () => {
-  ctx = await makeTestApp({ signInLimit: { max: 1000, windowMs: 60_000 } });
+  // Creating a print set queues a job, so this app has a real queue (no worker: the jobs stay queued).
+  boss = await startQueue(TEST_DATABASE_URL, createLogger('silent', 'test'), { supervise: false, schedule: false });
+  files = localDiskStore(mkdtempSync(path.join(tmpdir(), 'sheetsmith-access-')));
+  ctx = await makeTestApp({ signInLimit: { max: 1000, windowMs: 60_000 }, jobs: pgBossJobSender(boss), files });
   fx = await makeShopFixture(ctx);
 });
 afterAll(async () => {
+  await stopQueue(boss, 5_000);
   await ctx.close();
 });
+
+const walkPattern = () => ({ units: 'mm', pieces: [piece('W', rectangle(40, 30))], seams: [], warnings: [] });
+
+/** Inserts a finished print set with one stored file into the build and returns its id and the file's name. */
+async function insertDonePrintSet(buildId: string): Promise<{ id: string; fileName: string }> {
+  const svg = new TextEncoder().encode('<svg xmlns="http://www.w3.org/2000/svg" width="40mm" height="30mm"/>');
+  const [row] = await ctx.db
+    .insert(printSets)
+    .values({
+      shopId: fx.shopId,
+      buildId,
+      name: 'Access walk',
+      status: 'done',
+      formats: ['svg'],
+      page: 'a4',
+      mode: 'tiled',
+      pieceCount: 1,
+      pattern: { units: 'mm', pieces: [piece('W', rectangle(40, 30))], seams: [], warnings: [] },
+      files: [{ name: 'pattern.svg', sizeBytes: svg.byteLength, contentType: 'image/svg+xml' }],
+    })
+    .returning({ id: printSets.id });
+  await files.put(printSetFileKey(row.id, 'pattern.svg'), svg);
+  return { id: row.id, fileName: 'pattern.svg' };
+}
 
 /** Returns the concrete URL and a body that would succeed for an allowed caller. */
 async function concreteCall(method: HttpMethod, path: string, persona: Persona): Promise<{ url: string; body?: object }> {
   const buildId = path.includes(':buildId') ? await insertBuild(ctx.db, fx.shopId, 'Access walk build') : '';
-  const url = path.replace(':shopId', fx.shopId).replace(':buildId', buildId);
+  const printSet = path.includes(':printSetId') ? await insertDonePrintSet(buildId) : { id: '', fileName: '' };
+  const url = path.replace(':shopId', fx.shopId).replace(':buildId', buildId).replace(':printSetId', printSet.id).replace(':fileName', printSet.fileName);
+  if (path.endsWith('/print-sets') && method === 'POST') return { url, body: { pattern: walkPattern(), formats: ['svg'] } };
   if (path === '/api/auth/signup') return { url, body: { name: 'Walker', email: uniqueEmail('walk'), password: 'long-enough-pw' } };
   if (path === '/api/auth/signin') {
     const email = persona === 'anonymous' ? fx.people.owner.email : fx.people[persona].email;
