@@ -7,7 +7,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb, createPool, type Db } from '../../db/client';
 import { runMigrations } from '../../db/migrate';
-import { auditLog, builds, memberships, shops, users } from '../../db/schema';
+import { auditLog, builds, memberships, printSets, shops, users } from '../../db/schema';
 
 const url = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/sheetsmith_test';
 const pool = createPool(url, 3);
@@ -73,6 +73,22 @@ describe('database constraints (SQLSTATE codes from the PostgreSQL 15 manual, Ap
 
   it('refuses a build in a shop that does not exist (23503 foreign_key_violation)', async () => {
     expect((await pgError(db.insert(builds).values({ shopId: randomUUID(), name: 'Orphan' }))).code).toBe('23503');
+  });
+
+  it('deletes a build\'s print sets with it, keeps them when their creator leaves, and refuses an unknown status (22P02)', async () => {
+    const [u] = await db.insert(users).values({ email: email(), name: 'x', passwordHash: 'h' }).returning();
+    const [s] = await db.insert(shops).values({ name: 'Print shop' }).returning();
+    const [b] = await db.insert(builds).values({ shopId: s.id, name: 'Printed build' }).returning();
+    const values = { shopId: s.id, buildId: b.id, createdBy: u.id, name: 'Set', formats: ['pdf'], page: 'a4', mode: 'tiled', pieceCount: 0, pattern: { units: 'mm' as const, pieces: [], seams: [], warnings: [] } };
+    const [p] = await db.insert(printSets).values(values).returning();
+    expect(p.status).toBe('queued');
+    expect(p.files).toEqual([]);
+    await db.delete(users).where(eq(users.id, u.id));
+    expect((await db.select().from(printSets).where(eq(printSets.id, p.id)))[0].createdBy).toBeNull();
+    const bad = pool.query("UPDATE print_sets SET status = 'printing' WHERE id = $1", [p.id]);
+    expect((await pgError(bad)).code).toBe('22P02');
+    await db.delete(builds).where(eq(builds.id, b.id));
+    expect(await db.select().from(printSets).where(eq(printSets.id, p.id))).toEqual([]);
   });
 
   it('re-running the migrations is a no-op', async () => {
