@@ -182,7 +182,9 @@ function describeFailure(e: unknown, modelArg: string | undefined): { line: stri
   if (isGeometryError(e)) {
     const where = e.line !== undefined ? `${modelArg ?? 'model'}:${e.line}: ` : modelArg ? `${modelArg}: ` : '';
     const at = e.line === undefined && e.face !== undefined ? ` (face ${e.face})` : '';
-    return { line: `pattern: ${where}${oneLine(e.message)}${at}`, code: 1 };
+    // The parsers' messages start "OBJ line 12: …"; with the file:line prefix that would name the line twice.
+    const message = e.line !== undefined ? e.message.replace(/^(OBJ|STL|PLY) line \d+: /, '$1: ') : e.message;
+    return { line: `pattern: ${where}${oneLine(message)}${at}`, code: 1 };
   }
   const err = e as NodeJS.ErrnoException;
   if (err && typeof err === 'object' && typeof err.code === 'string' && typeof err.message === 'string') {

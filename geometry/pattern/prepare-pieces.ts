@@ -83,7 +83,10 @@ export function preparePieces(model: ImportedModel, options: PrepareOptions = {}
     } else {
       const found = seamsFromPolylines(mesh, twin, clean.seamPolylines);
       seamMask = found.mask;
-      for (const problem of found.problems) warnings.push(`seam line ${problem.polyline + 1}: ${problem.message}`);
+      // The finder's messages already name their line ("seam line 2, step 3: …"); say it once.
+      for (const problem of found.problems) {
+        warnings.push(`seam line ${problem.polyline + 1}: ${problem.message.replace(/^seam line \d+, /, '')}`);
+      }
     }
   } else {
     seamMask = creaseSeams(mesh.positions, mesh.triangles, twin, source.crease);

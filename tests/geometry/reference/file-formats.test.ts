@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { PatternDoc } from '../../../geometry/pattern/pattern-doc';
 import { objFile, plyFile, stlAscii, stlBinary, type ObjStyle } from '../../fixtures/reference/model-files';
-import { lOutline, moved, prismOver, regularPolygon, type PolyShape } from '../../fixtures/reference/reference-shapes';
+import { lOutline, moved, prismOver, regularPolygon, tube, type PolyShape } from '../../fixtures/reference/reference-shapes';
 import { expectPatternInvariants, patternOfFile, runPatternCommand } from './reference-checks';
 
 const crease = { seams: { crease: 10 } } as const;
@@ -101,6 +101,21 @@ describe('regression: a UTF-8 byte-order mark at the start of a text file', () =
   });
 });
 
+describe('regression: a seam line that is not a mesh edge is reported once per step, naming its line once', () => {
+  it('the warning reads "seam line 1: step 1: …", not "seam line 1: seam line 1, step 1: …"', () => {
+    const shape = tube(30, 60, 24, 3);
+    // From the bottom ring diagonally up to the next generator's ring vertex: not an edge of the quad mesh.
+    shape.lines = [[0, 24 + 3, 48, 72]];
+    const doc = patternOfFile(objFile(shape), 'diagonal.obj', { seams: 'obj' });
+    const notes = doc.warnings.filter((w) => /share no edge/.test(w));
+    expect(notes.length).toBeGreaterThan(0);
+    for (const w of notes) {
+      expect(w).toMatch(/^seam line 1: step \d+: /);
+      expect(w.match(/seam line/g)).toHaveLength(1);
+    }
+  });
+});
+
 describe('broken files stop the command with one line naming the problem and the line', () => {
   const work = mkdtempSync(join(tmpdir(), 'reference-broken-'));
   afterAll(() => rmSync(work, { recursive: true, force: true }));
@@ -144,7 +159,12 @@ describe('broken files stop the command with one line naming the problem and the
       expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
       expect(lines[0]).toContain(file);
       expect(lines[0]).toMatch(what);
-      if (line !== null) expect(lines[0]).toMatch(new RegExp(`\\b${line}\\b`));
+      if (line !== null) {
+        // Compiler style "file:line: message" (common practice), the line named once — regression: the parsers'
+        // own "OBJ line 12:" prefix used to follow the "file:12:" one.
+        expect(lines[0]).toContain(`${file}:${line}: `);
+        expect(lines[0]).not.toMatch(/line \d+:/i);
+      }
     });
   }
 });
