@@ -3,7 +3,7 @@
  *
  *   npm run -s pattern -- <model.obj|.stl|.ply> --out <dir> [--seams obj|crease:<deg>|auto] [--units mm|cm|m|in]
  *     [--thickness <mm>] [--surface outer|mid|inner] [--stretch-budget <pct>] [--page a4|letter|a3|tabloid]
- *     [--format json,pdf,svg,dxf]
+ *     [--format json,pdf,svg,dxf] [--mode tiled|piece-per-page|stock-sheet] [--spares <pct>]
  *
  * Default seams: the file's `l` polylines when it has any (the maker marked them), otherwise automatic seams
  * from the stretch budget (`auto`), which also follow sharp creases, so a hard-surface sculpt is cut at its
@@ -14,16 +14,17 @@
  */
 import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { isGeometryError } from '../geometry/errors';
 import { importModel } from '../geometry/io/import-model';
 import { buildPattern, DEFAULT_THICKNESS_MM } from '../geometry/pattern/build-pattern';
 import type { PatternDoc, PatternSurface } from '../geometry/pattern/pattern-doc';
 import type { SeamSource } from '../geometry/pattern/prepare-pieces';
 import { MODEL_UNIT_MM, type ModelUnit } from '../geometry/units';
+import { writePrintSetFiles } from './print-set-files';
 
 type PrintFormat = 'pdf' | 'svg' | 'dxf';
 type PageSize = 'a4' | 'letter' | 'a3' | 'tabloid';
+type PrintMode = 'tiled' | 'piece-per-page' | 'stock-sheet';
 
 interface CommandOptions {
   model: string;
@@ -34,6 +35,8 @@ interface CommandOptions {
   surface: PatternSurface;
   stretchBudgetPct: number;
   page: PageSize;
+  mode: PrintMode;
+  sparesPct: number;
   formats: Array<'json' | PrintFormat>;
 }
 
@@ -43,9 +46,9 @@ class UsageError extends Error {}
 const USAGE =
   'usage: pattern <model.obj|.stl|.ply> --out <dir> [--seams obj|crease:<deg>|auto] [--units mm|cm|m|in] ' +
   '[--thickness <mm>] [--surface outer|mid|inner] [--stretch-budget <pct>] [--page a4|letter|a3|tabloid] ' +
-  '[--format json,pdf,svg,dxf]';
+  '[--format json,pdf,svg,dxf] [--mode tiled|piece-per-page|stock-sheet] [--spares <pct>]';
 
-const VALUE_OPTIONS = ['--out', '--seams', '--units', '--thickness', '--surface', '--stretch-budget', '--page', '--format'];
+const VALUE_OPTIONS = ['--out', '--seams', '--units', '--thickness', '--surface', '--stretch-budget', '--page', '--format', '--mode', '--spares'];
 
 function parseNumber(option: string, text: string, check: (v: number) => boolean, want: string): number {
   const value = Number(text);
@@ -102,6 +105,11 @@ function parseArgs(argv: string[]): CommandOptions {
   if (page !== 'a4' && page !== 'letter' && page !== 'a3' && page !== 'tabloid') {
     throw new UsageError(`--page expects a4, letter, a3 or tabloid, got '${page}'`);
   }
+  const mode = values.get('--mode') ?? 'tiled';
+  if (mode !== 'tiled' && mode !== 'piece-per-page' && mode !== 'stock-sheet') {
+    throw new UsageError(`--mode expects tiled, piece-per-page or stock-sheet, got '${mode}'`);
+  }
+  const sparesText = values.get('--spares');
   const formats: CommandOptions['formats'] = ['json'];
   for (const f of (values.get('--format') ?? 'json').split(',').map((s) => s.trim().toLowerCase())) {
     if (f !== 'json' && f !== 'pdf' && f !== 'svg' && f !== 'dxf') {
@@ -126,29 +134,18 @@ function parseArgs(argv: string[]): CommandOptions {
         ? 3
         : parseNumber('--stretch-budget', budgetText, (v) => v > 0 && v <= 100, 'a percentage above 0 and at most 100'),
     page,
+    mode,
+    sparesPct:
+      sparesText === undefined
+        ? 10
+        : parseNumber('--spares', sparesText, (v) => v >= 0 && v <= 100, 'a spares allowance in percent from 0 to 100'),
     formats,
   };
-}
-
-/** Loads the print-set writer when it exists (scripts/print-set-files.ts). */
-async function printSetWriter(): Promise<
-  ((doc: PatternDoc, formats: PrintFormat[], outDir: string, opts: { page?: PageSize }) => Promise<string[]>) | null
-> {
-  const file = join(__dirname, 'print-set-files.ts');
-  if (!existsSync(file)) return null;
-  const mod = (await import(pathToFileURL(file).href)) as { writePrintSetFiles?: unknown };
-  return typeof mod.writePrintSetFiles === 'function'
-    ? (mod.writePrintSetFiles as (doc: PatternDoc, formats: PrintFormat[], outDir: string, opts: { page?: PageSize }) => Promise<string[]>)
-    : null;
 }
 
 async function main(argv: string[]): Promise<void> {
   const options = parseArgs(argv);
   const printFormats = options.formats.filter((f): f is PrintFormat => f !== 'json');
-  const writer = printFormats.length > 0 ? await printSetWriter() : null;
-  if (printFormats.length > 0 && !writer) {
-    throw new UsageError('PDF/SVG/DXF print sets are not available yet; use --format json');
-  }
   const modelPath = resolve(options.model);
   if (!existsSync(modelPath)) throw new UsageError(`model file not found: ${options.model}`);
   if (!statSync(modelPath).isFile()) throw new UsageError(`not a file: ${options.model}`);
@@ -166,7 +163,11 @@ async function main(argv: string[]): Promise<void> {
   const jsonPath = join(outDir, 'pattern.json');
   writeFileSync(jsonPath, JSON.stringify(doc, null, 1) + '\n');
   const written = [jsonPath];
-  if (writer) written.push(...(await writer(doc, printFormats, outDir, { page: options.page })));
+  if (printFormats.length > 0) {
+    written.push(
+      ...(await writePrintSetFiles(doc, printFormats, outDir, { page: options.page, mode: options.mode, sparesPct: options.sparesPct })),
+    );
+  }
   const quantity = doc.pieces.reduce((n, p) => n + p.quantity, 0);
   process.stdout.write(
     `pattern: ${doc.pieces.length} piece templates (${quantity} to cut), ${doc.seams.length} seams, ` +
