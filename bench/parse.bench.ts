@@ -13,14 +13,8 @@ import { performance } from 'node:perf_hooks';
 import { fileURLToPath } from 'node:url';
 import { parseObj } from '../geometry/io/parse-obj';
 import { cleanMesh } from '../geometry/mesh/clean-mesh';
+import type { BenchRow } from './bench-row';
 
-export interface BenchRow {
-  group: string;
-  name: string;
-  value: string;
-  target: string;
-  ok: boolean;
-}
 
 interface WorkerResult {
   which: string;

@@ -8,14 +8,8 @@ import { performance } from 'node:perf_hooks';
 import { importModel } from '../geometry/io/import-model';
 import { buildPattern } from '../geometry/pattern/build-pattern';
 import { uvSphere } from '../geometry/shapes';
+import type { BenchRow } from './bench-row';
 
-export interface BenchRow {
-  group: string;
-  name: string;
-  value: string;
-  target: string;
-  ok: boolean;
-}
 
 const GORES = 8;
 

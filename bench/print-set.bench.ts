@@ -11,8 +11,8 @@ import { boundsOf } from '../geometry/layout/outline-transform';
 import { planSheets } from '../geometry/layout/plan-sheets';
 import { signedAreaMm2 } from '../geometry/layout/outline-measure';
 import { manyPieceDoc } from '../tests/fixtures/pattern-docs/shape-docs';
+import type { BenchRow } from './bench-row';
 
-export type BenchRow = { group: string; name: string; value: string; target: string; ok: boolean };
 
 export async function run(): Promise<BenchRow[]> {
   const rows: BenchRow[] = [];

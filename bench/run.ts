@@ -10,14 +10,8 @@ import { cpus, totalmem } from 'node:os';
 import { dirname, join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import type { BenchRow } from './bench-row';
 
-export interface BenchRow {
-  group: string;
-  name: string;
-  value: string;
-  target: string;
-  ok: boolean;
-}
 
 const here = dirname(fileURLToPath(import.meta.url));
 

@@ -15,14 +15,8 @@ import { choleskyFactor } from '../geometry/sparse/cholesky';
 import { amdOrdering } from '../geometry/sparse/fill-ordering';
 import { nestedDissectionOrdering } from '../geometry/sparse/nested-dissection';
 import { multiply, principalSubmatrix } from '../geometry/sparse/sparse-symmetric-matrix';
+import type { BenchRow } from './bench-row';
 
-export interface BenchRow {
-  group: string;
-  name: string;
-  value: string;
-  target: string;
-  ok: boolean;
-}
 
 /** A k×k-cell grid of `cell` mm squares laid on a sphere of radius R (z = √(R² − x² − y²)), centred. */
 function sphereCap(k: number, cell: number, radius: number): TriMesh {
