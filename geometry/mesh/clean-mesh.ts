@@ -54,12 +54,38 @@ export interface CleanReport {
   notes: string[];
 }
 
+/**
+ * The positions of the vertices some face uses, Float64Array(3U). The weld distance is relative to the model's
+ * size, and a stray unused vertex far away (exporters leave such points behind) must not set that size: a
+ * single one 1000 m off once made the weld distance 1 m and collapsed a 60 mm part to nothing.
+ */
+function usedPositions(positions: Float64Array, triangles: Uint32Array): Float64Array {
+  const used = new Uint8Array(positions.length / 3);
+  let count = 0;
+  for (let i = 0; i < triangles.length; i++) {
+    if (!used[triangles[i]]) {
+      used[triangles[i]] = 1;
+      count++;
+    }
+  }
+  if (count === used.length) return positions;
+  const out = new Float64Array(3 * count);
+  let w = 0;
+  for (let v = 0; v < used.length; v++) {
+    if (!used[v]) continue;
+    out[w++] = positions[3 * v];
+    out[w++] = positions[3 * v + 1];
+    out[w++] = positions[3 * v + 2];
+  }
+  return out;
+}
+
 const fmt = (p: [number, number, number]) => `(${p.map((x) => x.toFixed(2)).join(', ')}) mm`;
 const MAX_LISTED = 20;
 
 /**
  * Cleans an imported model so the rest of the engine can rely on it: welds vertices closer than
- * `weldTolerance`·(bounding-box diagonal) (spatial hash), drops degenerate faces (a repeated corner after
+ * `weldTolerance`·(bounding-box diagonal of the vertices the faces use) (spatial hash), drops degenerate faces (a repeated corner after
  * welding, or thinner than the weld distance: height over the longest side below it) and duplicate faces
  * (same three vertices in any order; the first is kept), makes the winding consistent and turns closed shells
  * outward (orientFaces), then splits every non-manifold vertex — including both ends of each non-manifold
@@ -79,7 +105,7 @@ export function cleanMesh(model: ImportedModel, opts: CleanOptions = {}): { mode
   const srcTri = model.mesh.triangles;
   const Vin = srcPos.length / 3;
   const Fin = srcTri.length / 3;
-  const diag = boundingBoxDiagonal(srcPos);
+  const diag = boundingBoxDiagonal(usedPositions(srcPos, srcTri));
   const tol = rel * diag;
 
   // 1. Weld.
@@ -265,7 +291,10 @@ export function cleanMesh(model: ImportedModel, opts: CleanOptions = {}): { mode
     notes.push(`non-manifold vertex ${n.vertex} at ${fmt(n.at)}: ${n.fans} separate fans of faces met there; it was split into ${n.fans}`);
   }
   if (nonManifoldVertices.length > MAX_LISTED) notes.push(`… and ${nonManifoldVertices.length - MAX_LISTED} more non-manifold vertices`);
-  if (report.unusedVerticesRemoved > 0) notes.push(`removed ${report.unusedVerticesRemoved} vertices no face used`);
+  if (report.unusedVerticesRemoved > 0) {
+    const n = report.unusedVerticesRemoved;
+    notes.push(n === 1 ? 'removed 1 vertex that no face uses' : `removed ${n} vertices that no face uses`);
+  }
   if (droppedPolylinePoints > 0) notes.push(`${droppedPolylinePoints} seam polyline points were on no face and were dropped`);
   notes.push(`${components} connected ${components === 1 ? 'part' : 'parts'}, ${loops} boundary ${loops === 1 ? 'loop' : 'loops'}`);
 
