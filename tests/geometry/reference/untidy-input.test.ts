@@ -19,8 +19,8 @@ function summary(doc: PatternDoc): string[] {
   ];
 }
 
-// An L bracket with a 2 mm lip: small features are what a wrongly large weld distance destroys first.
-const bracket = prismOver(lOutline(60, 2), 45);
+// An L bracket with a 1 mm lip: small features are what a wrongly large weld distance destroys first.
+const bracket = prismOver(lOutline(60, 1), 45);
 const tidy = patternOfFile(objFile(bracket), 'tidy.obj', crease);
 
 function unwelded(shape: PolyShape): PolyShape {
@@ -39,16 +39,16 @@ const variants: Array<[string, PolyShape]> = [
   ['the whole model inside out', { ...bracket, faces: bracket.faces.map((f) => [...f].reverse()) }],
   ['one face written twice', { ...bracket, faces: [...bracket.faces, bracket.faces[2]] }],
   // Regression: the weld distance was taken relative to the bounding box of all vertices, so one unused vertex
-  // 1000 m away made it 1 m and the bracket collapsed ("no faces left after welding").
+  // 1000 m away made it 1.7 mm and welded the 1 mm lip away.
   ['a stray vertex no face uses, 1000 m away', { ...bracket, positions: [...bracket.positions, [1e6, -1e6, 1e6]] }],
   ['a stray vertex no face uses, 10 m away', { ...bracket, positions: [[1e4, 0, 0], ...bracket.positions], faces: bracket.faces.map((f) => f.map((v) => v + 1)) }],
 ];
 
 describe('untidy files give the tidy pattern', () => {
-  it('the tidy bracket: 2 mm lip kept, invariants hold', () => {
+  it('the tidy bracket: 1 mm lip kept, invariants hold', () => {
     expectPatternInvariants(tidy);
-    // Sides 60, 2, 58, 58, 2, 60 mm long by 45 mm (L outline): the 2 mm lips are pieces of 2 × 45 mm.
-    expect(tidy.pieces.some((p) => Math.abs(p.area2d - 2 * 45) < 1e-6)).toBe(true);
+    // Sides 60, 1, 59, 59, 1, 60 mm long by 45 mm (L outline): the 1 mm lips are pieces of 1 × 45 mm.
+    expect(tidy.pieces.some((p) => Math.abs(p.area2d - 1 * 45) < 1e-6)).toBe(true);
   });
   for (const [name, shape] of variants) {
     it(name, () => {
