@@ -15,14 +15,8 @@ import { buildTwins } from '../geometry/mesh/half-edges';
 import type { TriMesh } from '../geometry/mesh/tri-mesh';
 import { splitPieces } from '../geometry/pieces/split-pieces';
 import { autoSeams } from '../geometry/seams/auto-seams';
+import type { BenchRow } from './bench-row';
 
-export interface BenchRow {
-  group: string;
-  name: string;
-  value: string;
-  target: string;
-  ok: boolean;
-}
 
 const require = createRequire(import.meta.url);
 const BUDGET_PCT = 3;
