@@ -12,6 +12,7 @@ import type { ImportedModel } from '../mesh/tri-mesh';
 import { applyPlaneMotion, groupPieces, IDENTITY_MOTION, type PlaneMotion } from '../pieces/group-pieces';
 import { pieceLabel } from '../pieces/label-pieces';
 import { suggestDart } from '../pieces/suggest-dart';
+import { offsetDirections } from '../thickness/offset-directions';
 import { offsetSurface, surfaceOffsetMm } from '../thickness/offset-surface';
 import { SCORE_LINE_MIN_FOLD_DEG, scoreLines } from '../thickness/score-lines';
 import type { DartSuggestion, PatternDoc, PatternPiece, PatternSeam, PatternSurface, PieceSeamEdge } from './pattern-doc';
@@ -86,6 +87,8 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
   const { mesh, twin, dihedralDeg, normals, seamMask, pieces, pieceOfFace, localFaceOf } = prepared;
   const warnings = [...prepared.warnings];
   const offset = surfaceOffsetMm(surface, thickness);
+  // Crease-aware: a corner moves a full offset behind every face that meets there (offset-directions.ts).
+  const offsetDirs = offset > 0 ? offsetDirections(mesh.positions, mesh.triangles, normals) : normals;
   const provisional = pieces.map((_, i) => pieceLabel(i));
 
   // Flatten every piece on the chosen surface.
@@ -101,14 +104,14 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
     const localTwin = buildTwins(piece.triangles, V);
     let positions = piece.positions;
     if (offset > 0) {
-      const pieceNormals = new Float64Array(3 * V);
+      const pieceDirections = new Float64Array(3 * V);
       for (let v = 0; v < V; v++) {
         const g = piece.vertexIds[v];
-        pieceNormals[3 * v] = normals[3 * g];
-        pieceNormals[3 * v + 1] = normals[3 * g + 1];
-        pieceNormals[3 * v + 2] = normals[3 * g + 2];
+        pieceDirections[3 * v] = offsetDirs[3 * g];
+        pieceDirections[3 * v + 1] = offsetDirs[3 * g + 1];
+        pieceDirections[3 * v + 2] = offsetDirs[3 * g + 2];
       }
-      positions = offsetSurface(piece.positions, pieceNormals, offset);
+      positions = offsetSurface(piece.positions, pieceDirections, offset);
       const folded = foldedTriangles(piece.positions, positions, piece.triangles);
       if (folded > 0) {
         warnings.push(

@@ -13,15 +13,16 @@ export function surfaceOffsetMm(surface: PatternSurface, thicknessMm: number): n
 }
 
 /**
- * Moves every vertex inward along its unit normal.
+ * Moves every vertex inward: p − offsetMm·direction.
  *
  * @param positions Float64Array(3V), mm, the outer skin.
- * @param normals Float64Array(3V), unit outward vertex normals (angle-weighted, Thürrner & Wüthrich 1998,
- *   so the offset of a smooth surface does not depend on how it was triangulated).
+ * @param normals Float64Array(3V), outward offset directions: unit vertex normals (angle-weighted, Thürmer &
+ *   Wüthrich 1998, so the offset of a smooth surface does not depend on how it was triangulated), or the
+ *   crease-aware directions of offsetDirections, longer than 1 at creases and corners.
  * @param offsetMm distance to move inward, mm (≥ 0).
- * @returns a new Float64Array(3V). Exact for a cylinder or sphere (the offset of a circle of radius r by d is
- *   the concentric circle of radius r − d); only an approximation at sharp creases, where the true offset
- *   surface has a corner the vertex normal cannot follow.
+ * @returns a new Float64Array(3V). With unit normals, exact for a cylinder or sphere (the offset of a circle of
+ *   radius r by d is the concentric circle of radius r − d) but short at sharp creases; offsetDirections fixes
+ *   the creases.
  */
 export function offsetSurface(positions: Float64Array, normals: Float64Array, offsetMm: number): Float64Array {
   const out = new Float64Array(positions.length);
