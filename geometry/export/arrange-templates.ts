@@ -10,9 +10,12 @@ import { minAreaRect } from '../layout/min-area-rect';
 import { boundsOf, placeRing, type PlaceTransform } from '../layout/outline-transform';
 import { tilePages, type TileGrid, type TileOptions } from './tile-pages';
 import type { PageSizeName } from './page-sizes';
+import { templateCopies } from './piece-drawing';
 
 export interface ArrangedTemplate {
   piece: PatternPiece;
+  /** Which copy's match marks the template carries (0-based; piece-drawing.ts templateCopies). */
+  copyIndex: number;
   transform: PlaceTransform;
 }
 
@@ -33,9 +36,10 @@ export function templateRotationDeg(piece: PatternPiece): number {
 
 function shelves(pieces: PatternPiece[], stripW: number, gap: number): { items: ArrangedTemplate[]; w: number; h: number } {
   const sized = pieces
-    .map((piece) => {
+    .flatMap((piece) => {
       const rotationDeg = templateRotationDeg(piece);
-      return { piece, rotationDeg, b: boundsOf(placeRing(piece.outline, { mirrored: false, rotationDeg, x: 0, y: 0 })) };
+      const b = boundsOf(placeRing(piece.outline, { mirrored: false, rotationDeg, x: 0, y: 0 }));
+      return templateCopies(piece).map((copyIndex) => ({ piece, copyIndex, rotationDeg, b }));
     })
     .sort((a, b) => b.b.maxY - b.b.minY - (a.b.maxY - a.b.minY));
   const rows: Array<{ list: typeof sized; h: number }> = [];
@@ -56,7 +60,7 @@ function shelves(pieces: PatternPiece[], stripW: number, gap: number): { items: 
   for (const r of rows) {
     let x = gap;
     for (const s of r.list) {
-      items.push({ piece: s.piece, transform: { mirrored: false, rotationDeg: s.rotationDeg, x: x - s.b.minX, y: top - (s.b.maxY - s.b.minY) - s.b.minY } });
+      items.push({ piece: s.piece, copyIndex: s.copyIndex, transform: { mirrored: false, rotationDeg: s.rotationDeg, x: x - s.b.minX, y: top - (s.b.maxY - s.b.minY) - s.b.minY } });
       x += s.b.maxX - s.b.minX + gap;
     }
     maxW = Math.max(maxW, x);

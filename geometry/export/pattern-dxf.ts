@@ -9,7 +9,7 @@ import type { SheetPlan } from '../layout/plan-sheets';
 import type { PatternDoc, PointMm } from '../pattern/pattern-doc';
 import { GeometryError } from '../errors';
 import { declutterTexts } from './declutter-texts';
-import { pieceDrawing } from './piece-drawing';
+import { markedCopyIndex, pieceDrawing } from './piece-drawing';
 import { sheetFrames } from './sheet-frames';
 
 const LAYERS: ReadonlyArray<[string, number]> = [
@@ -56,7 +56,7 @@ export function patternDxf(doc: PatternDoc, plan: SheetPlan): string {
     const piece = doc.pieces.find((q) => q.label === pl.pieceLabel);
     if (!piece) throw new GeometryError('EXPORT_FAILED', `the sheet plan places piece ${pl.pieceLabel}, which is not in the pattern`);
     // Same marks as the printed set: notes that would clash are moved or left off (declutter-texts.ts).
-    const [d] = declutterTexts([pieceDrawing(piece, doc, pl, pl.spare ? `spare ${pl.copy}` : `copy ${pl.copy}`)]);
+    const [d] = declutterTexts([pieceDrawing(piece, doc, pl, pl.spare ? `spare ${pl.copy}` : `copy ${pl.copy}`, markedCopyIndex(piece, pl.copy))]);
     const dx = offsets[pl.sheetIndex];
     d.lines.forEach((l, k) => {
       const layer = l.layer === 'cut' ? (k === 0 ? 'SS_CUT' : 'SS_CUT_HOLES') : l.layer === 'score' ? 'SS_SCORE' : 'SS_MARKS';

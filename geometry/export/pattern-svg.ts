@@ -7,7 +7,7 @@ import type { SheetPlan } from '../layout/plan-sheets';
 import type { PatternDoc, PointMm } from '../pattern/pattern-doc';
 import { GeometryError } from '../errors';
 import { declutterTexts } from './declutter-texts';
-import { pieceDrawing, type DrawLayer, type PieceDrawing } from './piece-drawing';
+import { markedCopyIndex, pieceDrawing, type DrawLayer, type PieceDrawing } from './piece-drawing';
 import { sheetFrames } from './sheet-frames';
 
 const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
@@ -34,7 +34,7 @@ export function patternSvg(doc: PatternDoc, plan: SheetPlan): string {
       const piece = doc.pieces.find((q) => q.label === pl.pieceLabel);
       if (!piece) throw new GeometryError('EXPORT_FAILED', `the sheet plan places piece ${pl.pieceLabel}, which is not in the pattern`);
       // Same marks as the printed set: notes that would clash are moved or left off (declutter-texts.ts).
-      const [d] = declutterTexts([pieceDrawing(piece, doc, pl, pl.spare ? `spare ${pl.copy}` : `copy ${pl.copy}`)]);
+      const [d] = declutterTexts([pieceDrawing(piece, doc, pl, pl.spare ? `spare ${pl.copy}` : `copy ${pl.copy}`, markedCopyIndex(piece, pl.copy))]);
       drawn.push({ si: pl.sheetIndex, d, copyId: `${pl.pieceLabel}-${pl.copy}` });
     }
     const tid = `t${String(t).replace('.', '_')}mm`;

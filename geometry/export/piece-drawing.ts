@@ -233,11 +233,30 @@ function edgeMarks(piece: PatternPiece, edge: PieceSeamEdge, doc: PatternDoc, f:
 }
 
 /**
+ * The copy (0-based, as PieceSeamEdge.copy counts) whose match marks a cut piece of sheet-plan copy
+ * `copy` (1-based) carries; a spare repeats the marks of the copy it would replace in turn.
+ */
+export function markedCopyIndex(piece: PatternPiece, copy: number): number {
+  return (copy - 1) % Math.max(1, piece.quantity);
+}
+
+/**
+ * The copies that need a paper template of their own: every copy when the copies' seams carry different
+ * match-mark numbers, else just the first (one template traced `quantity` times).
+ */
+export function templateCopies(piece: PatternPiece): number[] {
+  const marked = (piece.seamEdges ?? []).some((e) => (e.copy ?? 0) > 0);
+  return marked ? Array.from({ length: piece.quantity }, (_, k) => k) : [0];
+}
+
+/**
  * Builds the drawing of one placed piece copy: outline, holes, label block (label, thickness,
  * quantity, "mirror one", copy), seam match marks and bevels, score lines, darts and texture line.
  * `t` places the piece (outline-transform.ts); `note` is an extra line under the label (e.g. "copy 2").
+ * `copyIndex` (0-based) picks which copy's match marks to draw: grouped identical pieces carry different
+ * seam numbers on each copy (PieceSeamEdge.copy), and a cut piece must show only its own.
  */
-export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTransform, note?: string): PieceDrawing {
+export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTransform, note?: string, copyIndex = 0): PieceDrawing {
   const f = placePointFn(t);
   const out: PieceDrawing = { lines: [], texts: [] };
   const outline = placeRing(piece.outline, t);
@@ -255,7 +274,7 @@ export function pieceDrawing(piece: PatternPiece, doc: PatternDoc, t: PlaceTrans
   const c = f(spot.at);
   out.texts.push({ layer: 'text', style: 'info', text: info.join(' · '), at: [c[0], c[1] - size * 0.75 - infoSize], angleDeg: 0, sizeMm: infoSize, weight: 'regular', priority: 1, keep: true });
 
-  for (const e of piece.seamEdges ?? []) edgeMarks(piece, e, doc, f, out);
+  for (const e of piece.seamEdges ?? []) if ((e.copy ?? 0) === copyIndex) edgeMarks(piece, e, doc, f, out);
   for (const sl of piece.scoreLines ?? []) {
     if (sl.path.length < 2) continue;
     const pts = sl.path.map(f);

@@ -11,11 +11,11 @@
 import { GeometryError } from '../errors';
 import { boundsOf, placeRing, type BoundsMm } from '../layout/outline-transform';
 import type { SheetPlan } from '../layout/plan-sheets';
-import type { PatternDoc, PointMm } from '../pattern/pattern-doc';
+import type { PatternDoc, PatternPiece, PointMm } from '../pattern/pattern-doc';
 import { arrangeTemplates, templateRotationDeg } from './arrange-templates';
 import { declutterTexts } from './declutter-texts';
 import type { PageSize } from './page-sizes';
-import { pieceDrawing, type PieceDrawing } from './piece-drawing';
+import { markedCopyIndex, pieceDrawing, templateCopies, type PieceDrawing } from './piece-drawing';
 import { freeSquareSpot, SCALE_SQUARE_FOOTPRINT_MM, SCALE_STRIP_MM, type PageContent } from './scale-square-spot';
 import { drawingToPage, tilePages, type PageRectMm, type Tile, type TileGrid, type TileOptions } from './tile-pages';
 import { textBox } from './text-box';
@@ -108,16 +108,21 @@ function placeSquares(area: PrintArea): PointMm[] | null {
 
 function tiledArea(doc: PatternDoc, page: string, tile: TileOptions): PrintArea {
   const arr = arrangeTemplates(doc, page, tile);
-  const drawings = arr.items.map((it) => pieceDrawing(it.piece, doc, it.transform));
+  const drawings = arr.items.map((it) => pieceDrawing(it.piece, doc, it.transform, copyNote(it.piece, it.copyIndex), it.copyIndex));
   return areaOf('templates', arr.widthMm, arr.heightMm, drawings, arr.items.map((it) => it.piece.label), arr.grid);
 }
 
-function pieceArea(doc: PatternDoc, index: number, page: string, tile: TileOptions): PrintArea {
+/** "copy 2 of 6" under the label of a template that carries one copy's own match marks. */
+function copyNote(piece: PatternPiece, copyIndex: number): string | undefined {
+  return templateCopies(piece).length > 1 ? `copy ${copyIndex + 1} of ${piece.quantity}` : undefined;
+}
+
+function pieceArea(doc: PatternDoc, index: number, copyIndex: number, page: string, tile: TileOptions): PrintArea {
   const piece = doc.pieces[index];
   const rotationDeg = templateRotationDeg(piece);
   const b = boundsOf(placeRing(piece.outline, { mirrored: false, rotationDeg, x: 0, y: 0 }));
   const border = 14;
-  const d = pieceDrawing(piece, doc, { mirrored: false, rotationDeg, x: border - b.minX, y: border - b.minY });
+  const d = pieceDrawing(piece, doc, { mirrored: false, rotationDeg, x: border - b.minX, y: border - b.minY }, copyNote(piece, copyIndex), copyIndex);
   const widthMm = b.maxX - b.minX + 2 * border;
   const heightMm = b.maxY - b.minY + 2 * border;
   return areaOf(`piece ${piece.label}`, widthMm, heightMm, [d], [piece.label], tilePages({ widthMm, heightMm }, page, tile));
@@ -131,7 +136,7 @@ function sheetArea(doc: PatternDoc, plan: SheetPlan, si: number, margin: number,
   for (const pl of plan.placements.filter((p) => p.sheetIndex === si)) {
     const piece = doc.pieces.find((q) => q.label === pl.pieceLabel);
     if (!piece) throw new GeometryError('EXPORT_FAILED', `the sheet plan places piece ${pl.pieceLabel}, which is not in the pattern`);
-    drawings.push(pieceDrawing(piece, doc, pl, pl.spare ? `spare ${pl.copy}` : `copy ${pl.copy}`));
+    drawings.push(pieceDrawing(piece, doc, pl, pl.spare ? `spare ${pl.copy}` : `copy ${pl.copy}`, markedCopyIndex(piece, pl.copy)));
     labels.push(pl.pieceLabel);
   }
   // The page is the sheet plus margins; a strip for the squares, when needed, goes under the sheet so
@@ -167,7 +172,7 @@ export function printSetPages(doc: PatternDoc, plan: SheetPlan, opts: PrintPages
   const strip: TileOptions = { ...tile, reserveMm: SCALE_STRIP_MM };
   const builders: Array<(reserve: boolean) => PrintArea> =
     opts.mode === 'tiled' ? [(r) => tiledArea(doc, opts.page, r ? strip : tile)]
-      : opts.mode === 'piece-per-page' ? doc.pieces.map((_, i) => (r: boolean) => pieceArea(doc, i, opts.page, r ? strip : tile))
+      : opts.mode === 'piece-per-page' ? doc.pieces.flatMap((piece, i) => templateCopies(piece).map((k) => (r: boolean) => pieceArea(doc, i, k, opts.page, r ? strip : tile)))
         : plan.sheets.map((_, si) => (r: boolean) => sheetArea(doc, plan, si, opts.marginMm ?? 6, r ? SCALE_STRIP_MM : 0));
   const areas: PrintArea[] = [];
   const pages: PrintPage[] = [];
