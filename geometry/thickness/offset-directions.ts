@@ -32,7 +32,7 @@ export const MITRE_LIMIT = 4;
 export function offsetDirections(positions: Float64Array, triangles: Uint32Array, normals: Float64Array): Float64Array {
   const V = positions.length / 3;
   // Per vertex: the weighted normal matrix M = Σ w·n·nᵀ (6 entries), b = Σ w·n, Σ w, and the smallest n·normal.
-  const M = new Float64Array(6 * V);
+  const normalMatrix = new Float64Array(6 * V);
   const b = new Float64Array(3 * V);
   const minCos = new Float64Array(V).fill(1);
   for (let f = 0; f < triangles.length; f += 3) {
@@ -58,13 +58,13 @@ export function offsetDirections(positions: Float64Array, triangles: Uint32Array
       const gx = positions[r] - positions[p], gy = positions[r + 1] - positions[p + 1], gz = positions[r + 2] - positions[p + 2];
       const w = Math.atan2(Math.hypot(ey * gz - ez * gy, ez * gx - ex * gz, ex * gy - ey * gx), ex * gx + ey * gy + ez * gz);
       const v = p / 3;
-      const m = 6 * v;
-      M[m] += w * nx * nx;
-      M[m + 1] += w * nx * ny;
-      M[m + 2] += w * nx * nz;
-      M[m + 3] += w * ny * ny;
-      M[m + 4] += w * ny * nz;
-      M[m + 5] += w * nz * nz;
+      const k = 6 * v;
+      normalMatrix[k] += w * nx * nx;
+      normalMatrix[k + 1] += w * nx * ny;
+      normalMatrix[k + 2] += w * nx * nz;
+      normalMatrix[k + 3] += w * ny * ny;
+      normalMatrix[k + 4] += w * ny * nz;
+      normalMatrix[k + 5] += w * nz * nz;
       b[p] += w * nx;
       b[p + 1] += w * ny;
       b[p + 2] += w * nz;
@@ -82,8 +82,9 @@ export function offsetDirections(positions: Float64Array, triangles: Uint32Array
       out[o + 2] = normals[o + 2];
       continue;
     }
-    const m = 6 * v;
-    const x = solveSymmetric3Pseudo(M[m], M[m + 1], M[m + 2], M[m + 3], M[m + 4], M[m + 5], b[o], b[o + 1], b[o + 2]);
+    const k = 6 * v;
+    const nm = normalMatrix;
+    const x = solveSymmetric3Pseudo(nm[k], nm[k + 1], nm[k + 2], nm[k + 3], nm[k + 4], nm[k + 5], b[o], b[o + 1], b[o + 2]);
     const len = Math.hypot(x[0], x[1], x[2]);
     const scale = len > MITRE_LIMIT ? MITRE_LIMIT / len : 1;
     out[o] = x[0] * scale;

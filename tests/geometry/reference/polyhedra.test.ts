@@ -126,9 +126,9 @@ describe('regular tetrahedron and octahedron at odd scales and turns', () => {
   // Dihedral angles: tetrahedron arccos(1/3) = 70.5288°, octahedron arccos(−1/3) = 109.4712° (Coxeter,
   // Regular Polytopes, Table I).
   const cases: Array<[string, PolyShape, number, number, 'mm' | 'm']> = [
-    ['tetrahedron, edge 1e-3 m in --units m', tetrahedron(1e-3), Math.acos(1 / 3) * DEG, 4, 'm'],
+    ['tetrahedron, edge 0.001 m (--units m)', tetrahedron(0.001), Math.acos(1 / 3) * DEG, 4, 'm'],
     ['tetrahedron, edge 1e4 mm', moved(tetrahedron(1e4), [0.3, -1, 0.2], 2.1, 1, [-3e4, 0, 7e3]), Math.acos(1 / 3) * DEG, 4, 'mm'],
-    ['octahedron, edge 1e-3 m in --units m, turned', moved(octahedron(1e-3), [1, 1, 1], 0.9, 1, [2, 3, -1]), Math.acos(-1 / 3) * DEG, 8, 'm'],
+    ['octahedron, edge 0.001 m (--units m), turned', moved(octahedron(0.001), [1, 1, 1], 0.9, 1, [2, 3, -1]), Math.acos(-1 / 3) * DEG, 8, 'm'],
     ['octahedron, edge 1e4 mm', octahedron(1e4), Math.acos(-1 / 3) * DEG, 8, 'mm'],
   ];
   for (const [name, shape, theta, faces, unit] of cases) {
