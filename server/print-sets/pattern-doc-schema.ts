@@ -78,6 +78,7 @@ const pieceSchema = z
           path: path(2, 'a seam edge'),
           bevelDeg: z.number().min(0, 'must be 0° or more').max(90, 'must be at most 90°'),
           bevelFace,
+          copy: z.number().int('must be a whole number').min(0, 'must be 0 or more').optional(),
         }),
       )
       .max(PATTERN_LIMITS.seams, `at most ${PATTERN_LIMITS.seams} seam edges`)
@@ -93,6 +94,11 @@ const pieceSchema = z
     textureLine: z.array(point).length(2, 'a texture line is two points').nullable().optional(),
   })
   .superRefine((p, ctx) => {
+    (p.seamEdges ?? []).forEach((e, j) => {
+      if (e.copy !== undefined && e.copy >= p.quantity) {
+        ctx.addIssue({ code: 'custom', path: ['seamEdges', j, 'copy'], message: `must be below the quantity (${p.quantity})` });
+      }
+    });
     if (p.mirroredCopies !== undefined && p.mirroredCopies > p.quantity) {
       ctx.addIssue({ code: 'custom', path: ['mirroredCopies'], message: `must be at most the quantity (${p.quantity})` });
     }

@@ -61,6 +61,17 @@ describe('print-set request validation', () => {
       'pattern.pieces.0.seamEdges.0.seam',
       /names seam "9"/,
     ],
+    [
+      'a seam edge on a copy the piece does not have',
+      (d) => {
+        d.pieces[0].quantity = 2;
+        d.pieces[0].seamEdges = [{ seam: '1', side: 0, path: [[0, 0], [120, 0]], bevelDeg: 20, bevelFace: 'inner', copy: 2 }];
+        const seam = { label: '1', pieces: [d.pieces[0].label, d.pieces[0].label], length3d: 120, lengths: [120, 120], dihedral: { min: 140, mean: 140, max: 140 }, bevel: { min: 20, mean: 20, max: 20 }, convex: true, stations: [] };
+        return { pattern: { ...d, seams: [seam] }, formats: ['pdf'] };
+      },
+      'pattern.pieces.0.seamEdges.0.copy',
+      /below the quantity \(2\)/,
+    ],
     ['an unknown format', (d) => ({ pattern: d, formats: ['pdf', 'png'] }), 'formats.1', /one of pdf, svg, dxf/],
     ['a repeated format', (d) => ({ pattern: d, formats: ['pdf', 'pdf'] }), 'formats', /each format once/],
     ['no formats', (d) => ({ pattern: d, formats: [] }), 'formats', /at least one format/],
