@@ -2,20 +2,24 @@
  * The sheet plan: every piece copy (quantity, mirrored copies, spares) nested true-shape on stock
  * sheets of its thickness.
  *
- * Method: each outline is rasterized conservatively on a fine grid and the raster is grown by half the
- * cutting gap (raster-mask.ts); copies go largest first, each to the
- * first sheet where some rotation fits, at the bottom-left-most spot (lowest top edge, then leftmost)
- * over all rotations in `rotationStepDeg` steps (bottom-left fill after Jakobs 1996, on a raster as in
- * Oliveira and Ferreira 1993). Because the raster covers every cell an outline touches, placed copies
- * never overlap and keep at least the gap; the grid only costs up to about one cell of extra gap.
- * (The offsetter of clipper2-js 1.2 returned wrong rings for plain squares and circles here, so the
- * gap is kept on the raster; clipper's boolean intersection checks the result in the tests.)
+ * Method: each outline, in every rotation (`rotationStepDeg` steps) and mirror sense it can take, is
+ * grown by half the cutting gap with clipper's round-join offset (offset-ring.ts); that offset ring is
+ * rasterized on a fine grid by cell centres (raster-mask.ts), which is the fast candidate generator.
+ * Copies go largest first, each to the first sheet where some rotation fits, at the bottom-left-most spot
+ * (lowest top edge, then leftmost; bottom-left fill after Jakobs 1996, on a raster as in Oliveira and
+ * Ferreira 1993). Every raster candidate is confirmed exactly before it is taken (offset-clearance.ts):
+ * the offset ring must share no area with any placed piece's offset ring (clipper intersection) and lie
+ * inside the sheet; a rejected candidate gives way to the next one on the raster. So placed copies never
+ * overlap, keep at least the gap between them and half the gap to the sheet edge, and the raster only
+ * decides where to look, not how much room a piece takes.
  */
 import { GeometryError } from '../errors';
 import type { PatternDoc, PatternPiece, PointMm } from '../pattern/pattern-doc';
 import { signedAreaMm2 } from './outline-measure';
 import { boundsOf, placeRing, type PlaceTransform } from './outline-transform';
-import { dilateMask, rasterizeRing, type RasterMask } from './raster-mask';
+import { OffsetClearance } from './offset-clearance';
+import { OFFSET_SCALE, offsetRingUm, type OffsetRing } from './offset-ring';
+import { rasterizeRingCentres, type RasterMask } from './raster-mask';
 import { SheetGrid } from './sheet-grid';
 import { DEFAULT_STOCK_SHEETS, stockForThickness, type StockSheet } from './stock-sheets';
 
@@ -90,9 +94,9 @@ export interface PlanSheetsOptions {
 interface Orientation {
   rotationDeg: number;
   mirrored: boolean;
-  /** Translation that puts the piece where its mask's cell (0, 0) is at the origin, mm. */
-  offsetX: number;
-  offsetY: number;
+  /** The outline after mirror and rotation about the piece origin, grown by half the gap, µm. */
+  ring: OffsetRing;
+  /** The ring rasterized with its lower-left bounds corner at cell (0, 0). */
   mask: RasterMask;
 }
 
@@ -107,8 +111,17 @@ interface CopyJob {
 interface OpenSheet {
   stock: StockSheet;
   grid: SheetGrid;
+  clearance: OffsetClearance;
   index: number;
 }
+
+/**
+ * Raster candidates the exact test may turn down for one orientation on one sheet before that orientation
+ * is given up there. Each rejection costs one clipper intersection; in the bench set a rejected candidate is
+ * almost always followed by an accepted one a cell or two further on, so the cap only bounds the worst case
+ * (a sliver the centre raster barely sees); giving up is safe, it can only cost sheet area.
+ */
+const MAX_REJECTIONS = 64;
 
 function checkPiece(p: PatternPiece, i: number): void {
   const name = `piece ${p.label || `#${i + 1}`}`;
@@ -194,26 +207,37 @@ export function planSheets(doc: PatternDoc, opts: PlanSheetsOptions = {}): Sheet
     const hit = orientationCache.get(key);
     if (hit) return hit;
     const list = rotations.map((rotationDeg) => {
-      const moved = placeRing(piece.outline, { mirrored, rotationDeg, x: 0, y: 0 });
-      const b = boundsOf(moved);
-      const local = moved.map(([x, y]) => [x - b.minX, y - b.minY] as PointMm);
-      const { mask, shiftCells } = dilateMask(rasterizeRing(local, cellMm), gapMm / 2, cellMm);
-      return { rotationDeg, mirrored, offsetX: shiftCells * cellMm - b.minX, offsetY: shiftCells * cellMm - b.minY, mask };
+      const ring = offsetRingUm(placeRing(piece.outline, { mirrored, rotationDeg, x: 0, y: 0 }), gapMm / 2);
+      const local = ring.outerMm.map(([x, y]) => [x - ring.minX / OFFSET_SCALE, y - ring.minY / OFFSET_SCALE] as PointMm);
+      return { rotationDeg, mirrored, ring, mask: rasterizeRingCentres(local, cellMm) };
     });
     orientationCache.set(key, list);
     return list;
   };
 
-  const bestOn = (grid: SheetGrid, list: Orientation[]): { o: Orientation; x: number; y: number } | null => {
+  /** Translation (µm) that puts an orientation's ring bounds corner at grid cell (x, y). */
+  const shiftUm = (o: Orientation, x: number, y: number): { dx: number; dy: number } => ({
+    dx: Math.round(x * cellMm * OFFSET_SCALE) - o.ring.minX,
+    dy: Math.round(y * cellMm * OFFSET_SCALE) - o.ring.minY,
+  });
+
+  const bestOn = (sheet: OpenSheet, list: Orientation[]): { o: Orientation; x: number; y: number } | null => {
     let best: { o: Orientation; x: number; y: number } | null = null;
     let bestTop = Number.POSITIVE_INFINITY;
     for (const o of list) {
-      const at = grid.findBottomLeft(o.mask, bestTop);
-      if (!at) continue;
-      const top = at.y + o.mask.heightCells;
-      if (top < bestTop || (top === bestTop && best !== null && at.x < best.x)) {
-        best = { o, x: at.x, y: at.y };
-        bestTop = top;
+      let from = { x: 0, y: 0 };
+      for (let rejected = 0; rejected <= MAX_REJECTIONS; rejected++) {
+        const at = sheet.grid.findBottomLeft(o.mask, bestTop, from);
+        if (!at) break;
+        const top = at.y + o.mask.heightCells;
+        if (top === bestTop && best !== null && at.x >= best.x) break;
+        const { dx, dy } = shiftUm(o, at.x, at.y);
+        if (sheet.clearance.fits(o.ring, dx, dy)) {
+          best = { o, x: at.x, y: at.y };
+          bestTop = top;
+          break;
+        }
+        from = { x: at.x + 1, y: at.y };
       }
     }
     return best;
@@ -237,7 +261,7 @@ export function planSheets(doc: PatternDoc, opts: PlanSheetsOptions = {}): Sheet
     open.set(t, sheetsOfT);
     let chosen: { sheet: OpenSheet; o: Orientation; x: number; y: number } | null = null;
     for (const sheet of sheetsOfT) {
-      const b = bestOn(sheet.grid, list);
+      const b = bestOn(sheet, list);
       if (b) {
         chosen = { sheet, ...b };
         break;
@@ -246,9 +270,10 @@ export function planSheets(doc: PatternDoc, opts: PlanSheetsOptions = {}): Sheet
     if (!chosen) {
       for (const s of options) {
         const grid = new SheetGrid(Math.floor(s.widthMm / cellMm + 1e-9), Math.floor(s.heightMm / cellMm + 1e-9));
-        const b = bestOn(grid, list);
+        const fresh: OpenSheet = { stock: s, grid, clearance: new OffsetClearance(Math.round(s.widthMm * OFFSET_SCALE), Math.round(s.heightMm * OFFSET_SCALE)), index: sheets.length };
+        const b = bestOn(fresh, list);
         if (b) {
-          const sheet = { stock: s, grid, index: sheets.length };
+          const sheet = fresh;
           sheets.push({ thicknessMm: t, widthMm: s.widthMm, heightMm: s.heightMm, pricePerSheet: s.pricePerSheet, usedPct: 0, copies: 0 });
           usedArea.push(0);
           sheetsOfT.push(sheet);
@@ -267,7 +292,9 @@ export function planSheets(doc: PatternDoc, opts: PlanSheetsOptions = {}): Sheet
     }
     const { sheet, o, x, y } = chosen;
     sheet.grid.place(o.mask, x, y);
-    const tf: PlaceTransform = { mirrored: o.mirrored, rotationDeg: o.rotationDeg, x: x * cellMm + o.offsetX, y: y * cellMm + o.offsetY };
+    const { dx, dy } = shiftUm(o, x, y);
+    sheet.clearance.add(o.ring, dx, dy);
+    const tf: PlaceTransform = { mirrored: o.mirrored, rotationDeg: o.rotationDeg, x: dx / OFFSET_SCALE, y: dy / OFFSET_SCALE };
     placements.push({
       ...tf,
       pieceLabel: job.piece.label,

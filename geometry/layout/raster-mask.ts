@@ -5,8 +5,9 @@
  * band (so it lies in the x-extent of an edge clipped to the band) or stays inside up to y1 (so it
  * lies in the cross-section at y1); the union of both covers the band.
  *
- * The cutting gap is kept by dilating each mask by half the gap (dilateMask): if two outlines came
- * closer than the gap, the midpoint of their closest points would lie in a cell of both dilated masks.
+ * rasterizeRingCentres is the looser raster the sheet plan searches on: a cell is set when its centre
+ * lies inside the polygon, so masks that share no cell may still overlap by part of a cell; the planner
+ * confirms every raster candidate with an exact clipper test (offset-clearance.ts).
  */
 import type { PointMm } from '../pattern/pattern-doc';
 
@@ -88,44 +89,35 @@ export function rasterizeRing(ring: readonly PointMm[], cellMm: number): RasterM
 }
 
 /**
- * Grows a mask by every cell whose square lies closer than `radiusMm` to a set cell (square-to-square
- * distance), so the dilated mask covers the polygon's offset by `radiusMm`. Returns the new mask and
- * `shiftCells`, how far the original cell (0, 0) moved (the same in x and y).
+ * Rasterizes `ring` (mm, any winding, moved so its bounds start at 0,0) on cells of `cellMm`, setting a
+ * cell when its centre lies inside the ring (even-odd crossings of the row's centre line). The mask is
+ * ceil(width / cellMm) × ceil(height / cellMm) cells, so it never reaches past the ring's bounds rounded
+ * up to whole cells. Rows of a sliver thinner than a cell may be empty.
  */
-export function dilateMask(mask: RasterMask, radiusMm: number, cellMm: number): { mask: RasterMask; shiftCells: number } {
-  const k = radiusMm > 0 ? Math.ceil(radiusMm / cellMm - 1e-9) : 0;
-  if (k === 0) return { mask, shiftCells: 0 };
-  // reach[d]: cells to extend sideways at a row distance d, from (|dy|−1)² + (|dx|−1)² < (r/cell)².
-  const rr = (radiusMm / cellMm) ** 2;
-  const reach: number[] = [];
-  for (let d = 0; d <= k; d++) {
-    const dy = Math.max(0, d - 1);
-    const left = rr - dy * dy;
-    reach.push(left <= 0 ? -1 : Math.ceil(Math.sqrt(left) - 1e-9));
+export function rasterizeRingCentres(ring: readonly PointMm[], cellMm: number): RasterMask {
+  let maxX = 0;
+  let maxY = 0;
+  for (const [x, y] of ring) {
+    if (x > maxX) maxX = x;
+    if (y > maxY) maxY = y;
   }
-  const widthCells = mask.widthCells + 2 * k;
-  const heightCells = mask.heightCells + 2 * k;
+  const widthCells = Math.max(1, Math.ceil(maxX / cellMm - 1e-9));
+  const heightCells = Math.max(1, Math.ceil(maxY / cellMm - 1e-9));
   const rows: Int32Array[] = [];
   let cellCount = 0;
   for (let r = 0; r < heightCells; r++) {
-    const spans: Array<[number, number]> = [];
-    for (let d = -k; d <= k; d++) {
-      const src = r - k + d;
-      const ext = reach[Math.abs(d)];
-      if (src < 0 || src >= mask.heightCells || ext < 0) continue;
-      const runs = mask.rows[src];
-      for (let i = 0; i < runs.length; i += 2) spans.push([runs[i] + k - ext, runs[i + 1] + k + ext]);
+    const xs = crossings(ring, (r + 0.5) * cellMm);
+    const runs: number[] = [];
+    for (let k = 0; k + 1 < xs.length; k += 2) {
+      const s = Math.max(0, Math.ceil(xs[k] / cellMm - 0.5));
+      const e = Math.min(widthCells - 1, Math.floor(xs[k + 1] / cellMm - 0.5));
+      if (s > e) continue;
+      const n = runs.length;
+      if (n > 0 && s <= runs[n - 1] + 1) runs[n - 1] = Math.max(runs[n - 1], e);
+      else runs.push(s, e);
     }
-    spans.sort((a, b) => a[0] - b[0]);
-    const out: number[] = [];
-    for (const [s, e] of spans) {
-      const n = out.length;
-      if (n > 0 && s <= out[n - 1] + 1) {
-        if (e > out[n - 1]) out[n - 1] = e;
-      } else out.push(s, e);
-    }
-    for (let i = 0; i < out.length; i += 2) cellCount += out[i + 1] - out[i] + 1;
-    rows.push(Int32Array.from(out));
+    for (let k = 0; k < runs.length; k += 2) cellCount += runs[k + 1] - runs[k] + 1;
+    rows.push(Int32Array.from(runs));
   }
-  return { mask: { widthCells, heightCells, rows, cellCount }, shiftCells: k };
+  return { widthCells, heightCells, rows, cellCount };
 }

@@ -40,17 +40,18 @@ export class SheetGrid {
   /**
    * The lowest row, then the leftmost column, where `mask` fits without touching a set cell, or null.
    * Rows are searched only while the mask's top edge stays at or below `maxTopRow` (a bound from a
-   * better orientation already found).
+   * better orientation already found), starting at cell `from` (row-major order: the rest of that row,
+   * then the rows above), so a caller that rejects a candidate can ask for the next one.
    */
-  findBottomLeft(mask: RasterMask, maxTopRow: number = Number.POSITIVE_INFINITY): { x: number; y: number } | null {
+  findBottomLeft(mask: RasterMask, maxTopRow: number = Number.POSITIVE_INFINITY, from: { x: number; y: number } = { x: 0, y: 0 }): { x: number; y: number } | null {
     const W = this.widthCells;
     const h = mask.heightCells;
     const w = mask.widthCells;
     if (w > W || h > this.heightCells || mask.cellCount > this.freeCells) return null;
     const lastY = Math.min(this.heightCells - h, maxTopRow - h);
     let firstRow = 0;
-    for (let y = 0; y <= lastY; y++) {
-      let x = 0;
+    for (let y = from.y; y <= lastY; y++) {
+      let x = y === from.y ? from.x : 0;
       search: while (x + w <= W) {
         for (let k = 0; k < h; k++) {
           const r = (firstRow + k) % h;
