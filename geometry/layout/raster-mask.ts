@@ -103,10 +103,26 @@ export function rasterizeRingCentres(ring: readonly PointMm[], cellMm: number): 
   }
   const widthCells = Math.max(1, Math.ceil(maxX / cellMm - 1e-9));
   const heightCells = Math.max(1, Math.ceil(maxY / cellMm - 1e-9));
+  // Each edge drops its crossings into the rows whose centre line it spans (half-open in y, as in
+  // crossings()), so the cost grows with vertices plus crossings, not vertices times rows.
+  const perRow: number[][] = Array.from({ length: heightCells }, () => []);
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+    const [xi, yi] = ring[i];
+    const [xj, yj] = ring[j];
+    if (yi === yj) continue;
+    const lo = Math.min(yi, yj);
+    const hi = Math.max(yi, yj);
+    const first = Math.max(0, Math.ceil(lo / cellMm - 0.5));
+    const last = Math.min(heightCells - 1, Math.ceil(hi / cellMm - 0.5) - 1);
+    for (let r = first; r <= last; r++) {
+      const y = (r + 0.5) * cellMm;
+      if (yi > y !== yj > y) perRow[r].push(xi + ((y - yi) * (xj - xi)) / (yj - yi));
+    }
+  }
   const rows: Int32Array[] = [];
   let cellCount = 0;
   for (let r = 0; r < heightCells; r++) {
-    const xs = crossings(ring, (r + 0.5) * cellMm);
+    const xs = perRow[r].sort((a, b) => a - b);
     const runs: number[] = [];
     for (let k = 0; k + 1 < xs.length; k += 2) {
       const s = Math.max(0, Math.ceil(xs[k] / cellMm - 0.5));
