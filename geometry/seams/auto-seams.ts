@@ -2,6 +2,11 @@
  * Automatic seams from a stretch budget: split the sculpt into as few pieces as it takes for every piece to
  * lie flat in foam within the budget, with seams that are short, smooth and out of sight where they can be.
  *
+ * Sharp creases (departing from flat by CREASE_BORDER_DEG or more, crease-borders.ts) are fixed borders: no chart
+ * is grown, merged or reshaped across one, so a box is cut along its edges and no seam mixes a sharp corner with
+ * a flat run. A crease that fades out inside a smooth region can still have one chart on both sides (the chart
+ * wraps round its end); the pattern then scores it as a fold inside the piece.
+ *
  * The method follows D-Charts (Julius et al. 2005) and "Developability of triangle meshes" (Stein et al. 2018)
  * in spirit: charts are grown over the face graph and verified by really flattening them (LSCM then ARAP) and
  * measuring their stretch. Sheetsmith's own schedule, each step in its own module:
@@ -16,7 +21,8 @@
  * 4. every chart is checked with the full flattening and split again where it does not fit.
  * Trial flattenings use few ARAP rounds, and a chart that cannot fit by the isoperimetric inequality is never
  * flattened at all. A mirror-symmetric model is cut on one side of its symmetry plane and the charts are
- * mirrored onto the other side, so its pieces come in mirror pairs.
+ * mirrored onto the other side, so its pieces come in mirror pairs; where the plane crosses a flat region the
+ * two halves of a piece are joined again (joinAcrossFlatPlane).
  *
  * Viewpoint convention: the sculpt stands with +z up (the lowest z is its underside) and, when it is
  * mirror-symmetric, faces −y (so +y is its back); both can be overridden in the options.
@@ -25,9 +31,10 @@ import { GeometryError } from '../errors';
 import type { TriMesh } from '../mesh/tri-mesh';
 import { absorbSmallCharts } from './absorb-small-charts';
 import { components, faceGraph, type FaceGraph } from './chart-face-graph';
+import { CREASE_BORDER_DEG, cutAtCreases } from './crease-borders';
 import { chartStretchPct, isoperimetricallyPossible } from './chart-stretch';
 import { mergeCharts } from './merge-charts';
-import { defragment, mirrorFaces } from './mirror-charts';
+import { defragment, joinAcrossFlatPlane, mirrorFaces } from './mirror-charts';
 import { findSymmetryPlane } from './mirror-seams';
 import { splitUntilFit } from './split-charts';
 import { straightenChartBorders } from './straighten-chart-borders';
@@ -52,6 +59,11 @@ export interface AutoSeamOptions {
    * (and `symmetric` is on), else none.
    */
   front?: [number, number, number] | null;
+  /**
+   * Edges whose interior angle departs from flat (180°) by at least this many degrees are fixed chart borders
+   * (default CREASE_BORDER_DEG = 40; null: none). Must be in (0, 180].
+   */
+  creaseBorderDeg?: number | null;
 }
 
 /** ARAP rounds of a trial flattening: enough to rank charts; the final check uses flattenPiece's default. */
@@ -74,12 +86,14 @@ const DEFAULT_FRONT: [number, number, number] = [0, -1, 0];
  *
  * @param mesh TriMesh in mm, consistently oriented.
  * @param twin Int32Array(3F) half-edge twins, −1 on a boundary (non-manifold edges unpaired).
- * @param options stretch budget (percent, > 0), optional piece cap, trial rounds, symmetry and viewpoint.
- * @returns SeamMask: Uint8Array(3F), both half-edges of every seam edge set. Every piece the mask cuts out is
+ * @param options stretch budget (percent, > 0), optional piece cap, trial rounds, symmetry, viewpoint and crease
+ *   border angle.
+ * @returns SeamMask: Uint8Array(3F), both half-edges of every seam edge set. Every sharp crease (see
+ *   `creaseBorderDeg`) that separates two charts is a seam and no chart crosses one. Every piece the mask cuts out is
  *   connected and, unless `maxPieces` stopped the splitting, flattens within the budget with flattenPiece's
  *   default settings (each final piece is checked that way; quicker trial flattenings only steer the search).
  * @throws GeometryError BAD_OPTION for a budget that is not a positive number, a piece cap below 1, or an up or
- *   front vector that is not a finite non-zero 3-vector.
+ *   front vector that is not a finite non-zero 3-vector, or a crease border angle outside (0, 180].
  */
 export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOptions = {}): Uint8Array {
   const budget = options.stretchBudgetPct ?? 3;
@@ -93,13 +107,20 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
       throw new GeometryError('BAD_OPTION', `${name} must be a non-zero vector of three finite numbers, got [${v.join(', ')}]`);
     }
   }
+  const creaseDeg = options.creaseBorderDeg === undefined ? CREASE_BORDER_DEG : options.creaseBorderDeg;
+  if (creaseDeg !== null && !(creaseDeg > 0 && creaseDeg <= 180)) {
+    throw new GeometryError('BAD_OPTION', `crease border angle must be more than 0° and at most 180°, got ${String(creaseDeg)}`);
+  }
   const plane = options.symmetric ? findSymmetryPlane(mesh) : null;
   const unit = (v: [number, number, number]): [number, number, number] => {
     const n = Math.hypot(...v);
     return [v[0] / n, v[1] / n, v[2] / n];
   };
   const front = options.front !== undefined ? options.front : plane ? DEFAULT_FRONT : null;
-  const graph = faceGraph(mesh, twin, { up: unit(options.up ?? [0, 0, 1]), front: front ? unit(front) : null });
+  const fullGraph = faceGraph(mesh, twin, { up: unit(options.up ?? [0, 0, 1]), front: front ? unit(front) : null });
+  // Every pass below walks the graph's twins, so unpairing the sharp creases makes them borders everywhere.
+  const graph: FaceGraph =
+    creaseDeg === null ? fullGraph : { ...fullGraph, twin: cutAtCreases(mesh, twin, fullGraph.dihedralDeg, creaseDeg).twin };
   const F = graph.faceCount;
   const trialIterations = options.trialArapIterations ?? TRIAL_ARAP_ITERATIONS;
   const possible = (faces: ArrayLike<number>): boolean => isoperimetricallyPossible(graph, faces, budget);
@@ -140,6 +161,8 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
     charts = half.concat(checked);
   }
   charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
+  // Where the symmetry plane crosses a flat region (a box's side), the plane's seam is joined up again.
+  if (mirror) joinAcrossFlatPlane(graph, chartOf, mirror.inHalf, finalStretch, budget);
 
   const mask = new Uint8Array(3 * F);
   for (let h = 0; h < 3 * F; h++) {

@@ -138,3 +138,63 @@ export function defragment(g: FaceGraph, chartOf: Int32Array, fixed: Uint8Array)
   }
 }
 
+
+/**
+ * A border is flat when each of its edges departs from 180° by less than this, degrees: the same half degree
+ * below which a joint is cut square (SQUARE_BEVEL_DEG in bevel/seam-bevel.ts, common practice).
+ */
+const FLAT_BORDER_DEG = 0.5;
+
+/**
+ * Joins a chart of the kept half with a chart of the other half where the symmetry plane runs across a flat
+ * region between them (a box's side cut down its middle): a seam there buys no mirror pair a maker needs, only
+ * one more joint. Two charts are joined when every edge they share is flat (FLAT_BORDER_DEG) and the union still
+ * fits the budget by `stretchOf`; smaller unions are tried first and a chart joins at most once.
+ *
+ * @param g the face graph (its twins: creases already unpaired, so a crease is never a shared edge).
+ * @param chartOf one chart index per face, changed in place (the joined chart takes the kept half's index).
+ * @param inHalf 1 for faces of the kept half (mirrorFaces).
+ * @param stretchOf stretch of a chart (global face ids), percent; Infinity when it cannot fit.
+ * @param budget stretch budget, percent.
+ * @returns the number of joins made.
+ */
+export function joinAcrossFlatPlane(
+  g: FaceGraph,
+  chartOf: Int32Array,
+  inHalf: Uint8Array,
+  stretchOf: (faces: Int32Array) => number,
+  budget: number,
+): number {
+  const pairs = new Map<string, { a: number; b: number; flat: boolean }>();
+  for (let h = 0; h < 3 * g.faceCount; h++) {
+    const t = g.twin[h];
+    if (t < 0) continue;
+    const f = (h / 3) | 0;
+    const n = (t / 3) | 0;
+    if (!inHalf[f] || inHalf[n] || chartOf[f] === chartOf[n]) continue;
+    const key = `${chartOf[f]}:${chartOf[n]}`;
+    const pair = pairs.get(key) ?? { a: chartOf[f], b: chartOf[n], flat: true };
+    if (Math.abs(g.dihedralDeg[h] - 180) >= FLAT_BORDER_DEG) pair.flat = false;
+    pairs.set(key, pair);
+  }
+  const members = new Map<number, number[]>();
+  for (let f = 0; f < g.faceCount; f++) {
+    const list = members.get(chartOf[f]);
+    if (list) list.push(f);
+    else members.set(chartOf[f], [f]);
+  }
+  const size = (c: number): number => members.get(c)?.length ?? 0;
+  const order = [...pairs.values()].filter((p) => p.flat).sort((x, y) => size(x.a) + size(x.b) - size(y.a) - size(y.b) || x.a - y.a || x.b - y.b);
+  const joined = new Set<number>();
+  let count = 0;
+  for (const { a, b } of order) {
+    if (joined.has(a) || joined.has(b)) continue;
+    const union = Int32Array.from([...members.get(a)!, ...members.get(b)!]);
+    if (!(stretchOf(union) <= budget)) continue;
+    for (const f of members.get(b)!) chartOf[f] = a;
+    joined.add(a);
+    joined.add(b);
+    count++;
+  }
+  return count;
+}

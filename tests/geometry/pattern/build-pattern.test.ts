@@ -291,10 +291,14 @@ describe('buildPattern: stations, score lines, grouping, darts, closed shells', 
     const doc = buildPattern(modelOf(joinMeshes([half, transformMesh(half, { scale: [1, -1, 1] })])));
     expect(doc.pieces.length).toBeGreaterThan(1);
     for (const p of doc.pieces) {
-      // Every template is cut twice, once turned over (the mirror image), and stays within the 3 % budget.
-      expect([p.quantity, p.mirrored, p.mirroredCopies]).toEqual([2, true, 1]);
+      // Every template is cut twice, once turned over (the mirror image) unless the half is its own mirror image
+      // (the brim's half ring, symmetric front to back, matches its partner by a turn in the plane), and stays
+      // within the 3 % budget.
+      expect(p.quantity).toBe(2);
+      if (p.mirrored) expect(p.mirroredCopies).toBe(1);
       expect(p.stretch.maxPct).toBeLessThanOrEqual(3);
     }
+    expect(doc.pieces.filter((p) => p.mirrored).length).toBeGreaterThan(doc.pieces.length / 2);
   });
 
   it('carries the shop cautions and rejects bad options by name', () => {
