@@ -54,8 +54,10 @@ export const bevelFromDihedralDeg = (dihedralDeg: number): number => Math.abs(18
  * @param edgeDihedralDeg per chain edge, the interior dihedral in degrees (length n).
  * @returns length, dihedral and bevel statistics and stations. Stations sit at both ends always, and every
  *   25 mm between them when the bevel along the seam varies by more than SQUARE_BEVEL_DEG; the value at a
- *   station is interpolated linearly in arc length between vertex values, a vertex taking the length-weighted
- *   mean of its two edges (an end vertex takes its one edge).
+ *   station is interpolated linearly in arc length between edge middles (each edge's value belongs to its
+ *   middle) and extrapolated linearly to the ends, so a linearly varying angle is reproduced at the ends as well
+ *   as between them; a closed loop wraps round instead. min/max cover the edges and both end values; the mean
+ *   is length-weighted over the edges.
  */
 export function seamBevel(positions: Float64Array, vertices: Uint32Array, edgeDihedralDeg: Float64Array): SeamBevel {
   const n = vertices.length - 1;
@@ -91,27 +93,60 @@ export function seamBevel(positions: Float64Array, vertices: Uint32Array, edgeDi
   const convex = dSum < 180;
   const bevelFace = bSum < SQUARE_BEVEL_DEG ? 'none' : convex ? 'inner' : 'outer';
 
-  // Vertex values and their arc-length positions.
-  const at = new Float64Array(n + 1);
-  const vertexDihedral = new Float64Array(n + 1);
-  for (let k = 0; k <= n; k++) {
-    if (k > 0) at[k] = at[k - 1] + lengths[k - 1];
-    if (k === 0) vertexDihedral[k] = edgeDihedralDeg[0];
-    else if (k === n) vertexDihedral[k] = edgeDihedralDeg[n - 1];
-    else {
-      const wl = lengths[k - 1];
-      const wr = lengths[k];
-      vertexDihedral[k] =
-        wl + wr > 0 ? (wl * edgeDihedralDeg[k - 1] + wr * edgeDihedralDeg[k]) / (wl + wr) : edgeDihedralDeg[k];
+  // The angle along the seam: each edge's value belongs to its middle; between middles it is interpolated
+  // linearly, and beyond the first and last middles extrapolated along the same line, so an angle that varies
+  // linearly along the seam reads right at its ends too (an end edge's own value lies half an edge inward). The
+  // extrapolation moves at most as far as the end pair of edges differ, so one odd edge of a scan cannot throw
+  // an end far off, and stops at flat. A closed loop has no ends: it wraps round through its first and last middles.
+  const closed = vertices[0] === vertices[n];
+  const mid = new Float64Array(n);
+  for (let k = 0, s = 0; k < n; s += lengths[k], k++) mid[k] = s + lengths[k] / 2;
+  const knotAt: number[] = [];
+  const knotValue: number[] = [];
+  if (n === 1) {
+    knotAt.push(0, total);
+    knotValue.push(edgeDihedralDeg[0], edgeDihedralDeg[0]);
+  } else {
+    const endValue = (inner: number, outer: number, distance: number, spacing: number): number => {
+      if (closed) return inner;
+      const step = edgeDihedralDeg[inner] - edgeDihedralDeg[outer];
+      const reach = spacing > 0 ? (step * distance) / spacing : 0;
+      const value = edgeDihedralDeg[inner] + Math.max(-Math.abs(step), Math.min(Math.abs(step), reach));
+      // Nor does it carry an end across flat: an outside corner stays one (and an inside corner) to its end.
+      // The side is the end edge's, or the next edge's when the end edge itself is flat.
+      const sideOf = Math.abs(edgeDihedralDeg[inner] - 180) > 1e-9 ? edgeDihedralDeg[inner] : edgeDihedralDeg[outer];
+      return (value - 180) * (sideOf - 180) < 0 ? 180 : value;
+    };
+    const wrapValue = (): number => {
+      // Value at the loop's joint, between the last middle and the first (both half an edge away).
+      const a = lengths[n - 1] / 2;
+      const b = lengths[0] / 2;
+      return a + b > 0 ? (b * edgeDihedralDeg[n - 1] + a * edgeDihedralDeg[0]) / (a + b) : edgeDihedralDeg[0];
+    };
+    knotAt.push(0);
+    knotValue.push(closed ? wrapValue() : endValue(0, 1, mid[0], mid[1] - mid[0]));
+    for (let k = 0; k < n; k++) {
+      knotAt.push(mid[k]);
+      knotValue.push(edgeDihedralDeg[k]);
     }
+    knotAt.push(total);
+    knotValue.push(closed ? wrapValue() : endValue(n - 1, n - 2, total - mid[n - 1], mid[n - 1] - mid[n - 2]));
   }
   const dihedralAt = (s: number): number => {
     let k = 0;
-    while (k < n - 1 && at[k + 1] < s) k++;
-    const span = at[k + 1] - at[k];
-    const t = span > 0 ? Math.min(1, Math.max(0, (s - at[k]) / span)) : 0;
-    return vertexDihedral[k] * (1 - t) + vertexDihedral[k + 1] * t;
+    while (k < knotAt.length - 2 && knotAt[k + 1] < s) k++;
+    const span = knotAt[k + 1] - knotAt[k];
+    const t = span > 0 ? Math.min(1, Math.max(0, (s - knotAt[k]) / span)) : 0;
+    return knotValue[k] * (1 - t) + knotValue[k + 1] * t;
   };
+  // The ends are points along the seam too: the range reported covers them.
+  for (const d of [knotValue[0], knotValue[knotValue.length - 1]]) {
+    const b = bevelFromDihedralDeg(d);
+    dMin = Math.min(dMin, d);
+    dMax = Math.max(dMax, d);
+    bMin = Math.min(bMin, b);
+    bMax = Math.max(bMax, b);
+  }
   const marks = [0];
   if (bMax - bMin > SQUARE_BEVEL_DEG) {
     for (let s = STATION_SPACING_MM; s < total - 1e-9; s += STATION_SPACING_MM) marks.push(s);
