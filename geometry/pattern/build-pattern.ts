@@ -89,6 +89,9 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
   const offset = surfaceOffsetMm(surface, thickness);
   // Crease-aware: a corner moves a full offset behind every face that meets there (offset-directions.ts).
   const offsetDirs = offset > 0 ? offsetDirections(mesh.positions, mesh.triangles, normals) : normals;
+  // The surface the pattern follows, whole: seams are measured on it (each piece below offsets the same vertices
+  // by the same directions, so its flattened edges lie on this surface).
+  const followed = offset > 0 ? offsetSurface(mesh.positions, offsetDirs, offset) : mesh.positions;
   const provisional = pieces.map((_, i) => pieceLabel(i));
 
   // Flatten every piece on the chosen surface.
@@ -167,9 +170,14 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
 
   // Seams, their bevels and each side's run along a piece outline.
   const seamEdgesOf: PieceSeamEdge[][] = pieces.map(() => []);
+  /** Most negative change of a seam's length from the outer skin to the followed surface, mm. */
+  let seamChangeMm = 0;
   const seams: PatternSeam[] = seamChains(mesh.triangles, twin, seamMask, pieceOfFace).map((chain, k) => {
     const label = String(k + 1);
-    const bevel = seamBevel(mesh.positions, chain.vertices, Float64Array.from(chain.halfEdges, (h) => dihedralDeg[h]));
+    // Angles are the sculpt's; lengths and stations are on the surface the pattern follows, so both pieces' 2D
+    // sides match length3d, and the outer skin's length is kept beside it.
+    const bevel = seamBevel(followed, chain.vertices, Float64Array.from(chain.halfEdges, (h) => dihedralDeg[h]));
+    const outerLength = offset > 0 ? polylineLength3d(mesh.positions, chain.vertices) : bevel.length3d;
     const sides = seamSides(chain, mesh.triangles, twin, pieces, pieceOfFace, localFaceOf, (p) => flattened[p].flat.uv);
     sides.forEach((side, s) => {
       const place = placeOf[side.piece];
@@ -183,7 +191,8 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
       });
     });
     const self = chain.pieces[0] === chain.pieces[1];
-    return {
+    seamChangeMm = Math.min(seamChangeMm, bevel.length3d - outerLength);
+    const seam: PatternSeam = {
       label,
       pieces: self ? [labelOf[chain.pieces[0]]] : [labelOf[chain.pieces[0]], labelOf[chain.pieces[1]]],
       length3d: bevel.length3d,
@@ -194,6 +203,8 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
       bevelFace: bevel.bevelFace,
       stations: bevel.stations,
     };
+    if (offset > 0) seam.length3dOuter = outerLength;
+    return seam;
   });
 
   // Pieces in group order, with score lines and darts on the representative.
@@ -250,7 +261,8 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
     const largest = Math.max(0, ...flattened.map((f) => -f.perimeterChangeMm));
     warnings.push(
       `the pattern follows the ${surface === 'mid' ? 'middle' : 'inner face'} of ${thickness} mm foam (${offset} mm inside the sculpt's skin): ` +
-        `outlines are up to ${largest.toFixed(1)} mm shorter around than on the outer skin`,
+        `outlines are up to ${largest.toFixed(1)} mm shorter around than on the outer skin, ` +
+        `and seams up to ${(-seamChangeMm).toFixed(1)} mm shorter (each seam's length3d is on the ${surface} surface, length3dOuter on the skin)`,
     );
   }
   const doc: PatternDoc = { units: 'mm', pieces: outPieces, seams, warnings, cautions: [...SHOP_CAUTIONS] };
@@ -262,6 +274,17 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
 function globalHalfEdge(triangles: Uint32Array, f: number, v: number): number {
   for (let k = 0; k < 3; k++) if (triangles[3 * f + k] === v) return 3 * f + k;
   throw new RangeError(`face ${f} has no corner at vertex ${v}`);
+}
+
+/** Length of a vertex polyline, mm. */
+function polylineLength3d(positions: Float64Array, vertices: Uint32Array): number {
+  let sum = 0;
+  for (let k = 0; k + 1 < vertices.length; k++) {
+    const a = 3 * vertices[k];
+    const b = 3 * vertices[k + 1];
+    sum += Math.hypot(positions[b] - positions[a], positions[b + 1] - positions[a + 1], positions[b + 2] - positions[a + 2]);
+  }
+  return sum;
 }
 
 function loopsLength3d(positions: Float64Array, loops: Uint32Array[]): number {

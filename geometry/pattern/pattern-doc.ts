@@ -93,7 +93,17 @@ export interface PatternSeam {
   label: string;
   /** The one or two pieces the seam joins (one for a tube closed onto itself). */
   pieces: string[];
+  /**
+   * Length of the seam on the surface the pattern follows (the one flattened: the outer skin, or the foam's
+   * middle or inner face for `surface` mid or inner), mm; both `lengths` match it within the pieces' stretch, and
+   * station `at` values are measured along it.
+   */
   length3d: number;
+  /**
+   * Length of the same seam on the sculpt's outer skin, mm, when the pattern follows another surface (absent for
+   * 'outer', where it equals length3d). The difference is what the choice of surface changes (issue 3 point 8).
+   */
+  length3dOuter?: number;
   /** 2D length on each side, in the order of `pieces` (twice the same piece for a self-seam). */
   lengths: number[];
   /** Interior angle between the pieces, 180 = flat, < 180 outside corner, > 180 inside corner. */

@@ -108,6 +108,7 @@ const seamSchema = z.object({
   label,
   pieces: z.array(label).min(1, 'a seam joins one or two pieces').max(2, 'a seam joins one or two pieces'),
   length3d: nonNegative,
+  length3dOuter: nonNegative.optional(),
   lengths: z.array(nonNegative).max(2, 'one length per side'),
   dihedral: range,
   bevel: range,

@@ -68,8 +68,8 @@ function everyNumber(value: unknown, path: string, visit: (n: number, path: stri
  * - area2d equals the area inside the outline minus the holes (the flat pattern is what is cut);
  * - area2d/area3d within the range the reported stretch allows: each triangle's area scales by σ1·σ2, and
  *   |σ − 1| ≤ maxPct/100, so the ratio lies in [(1 − m)², (1 + m)²];
- * - both 2D seam lengths equal the 3D length within the piece stretch (and a small absolute slack) — on the outer
- *   skin, or wherever the chosen surface keeps the seam its length;
+ * - both 2D seam lengths equal the 3D length within the piece stretch (and a small absolute slack), length3d being
+ *   measured on the surface the pattern follows;
  * - stations run from 0 to the seam length, strictly increasing, 25 mm apart between the ends when there are
  *   more than the two ends (issue 3 point 7); bevel = |180 − dihedral|/2 (common joinery
  *   practice), min ≤ mean ≤ max, convex iff the mean dihedral is below 180.
