@@ -44,10 +44,13 @@ export async function run(): Promise<BenchRow[]> {
       area += Math.abs(signedAreaMm2(p.outline));
     }
     const rectSheets = packer.bins.length;
+    // How far up its last sheet the true-shape plan reaches: tighter packing shows here before it saves a sheet.
+    const lastSheet = Math.max(...plan.placements.filter((p) => p.thicknessMm === th.thicknessMm).map((p) => p.sheetIndex));
+    const reach = Math.max(...plan.placements.filter((p) => p.sheetIndex === lastSheet).flatMap((p) => p.outline.map((q) => q[1])));
     const rectPct = (100 * area) / (rectSheets * sheet.widthMm * sheet.heightMm);
     rows.push({
       group: 'nesting vs rectangles',
-      name: `${th.thicknessMm} mm: true-shape ${th.sheets} sheets ${th.usedPct.toFixed(1)} % | rectangles ${rectSheets} sheets ${rectPct.toFixed(1)} %`,
+      name: `${th.thicknessMm} mm: true-shape ${th.sheets} sheets ${th.usedPct.toFixed(1)} % (last filled to ${reach.toFixed(0)} of ${sheet.heightMm} mm) | rectangles ${rectSheets} sheets ${rectPct.toFixed(1)} %`,
       value: `${th.sheets} vs ${rectSheets} sheets`,
       target: 'true-shape ≤ sheets and higher %',
       ok: th.sheets <= rectSheets && th.usedPct > rectPct,
