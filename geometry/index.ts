@@ -34,6 +34,7 @@ export { creaseSeams } from './seams/crease-seams';
 export { seamPath, type SeamPathOptions } from './seams/seam-path';
 export { findSymmetryPlane, mirrorSeams, type SymmetryPlane } from './seams/mirror-seams';
 export { autoSeams, type AutoSeamOptions } from './seams/auto-seams';
+export { cutAtCreases, CREASE_BORDER_DEG, CREASE_LINE_MIN_SHARE } from './seams/crease-borders';
 export { splitPieces, type PieceMesh } from './pieces/split-pieces';
 export { pieceLabel, pieceIndexOfLabel } from './pieces/label-pieces';
 export { groupPieces, type PieceGroup, type PieceShape } from './pieces/group-pieces';
@@ -46,6 +47,7 @@ export { triangleStretch } from './flatten/triangle-stretch';
 // Bevels and thickness.
 export { seamChains, type SeamChain } from './bevel/seam-chains';
 export { seamBevel, bevelFromDihedralDeg, STATION_SPACING_MM, type SeamBevel, type BevelStation } from './bevel/seam-bevel';
+export { offsetDirections, CREASE_SPREAD_DEG, MITRE_LIMIT } from './thickness/offset-directions';
 export { offsetSurface, surfaceOffsetMm } from './thickness/offset-surface';
 export { scoreLines, SCORE_LINE_MIN_FOLD_DEG } from './thickness/score-lines';
 
