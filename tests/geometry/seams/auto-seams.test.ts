@@ -35,7 +35,7 @@ describe('autoSeams', () => {
   const cases: Array<[string, () => TriMesh, number]> = [
     ['a sphere', () => icoSphere(100, 3), 20],
     ['a torus', () => torus(100, 35, 48, 16), 24],
-    ['the bunny scan', bunnyMesh, 55],
+    ['the bunny scan', bunnyMesh, 48],
   ];
   for (const [name, make, maxPieces] of cases) {
     it(`cuts ${name} into pieces that each lie flat within the 3 % budget`, () => {
@@ -47,7 +47,8 @@ describe('autoSeams', () => {
       // Gaussian curvature, so no single cut makes it developable (Gauss's Theorema Egregium).
       expect(stretch.length).toBeGreaterThan(1);
       // "As few pieces as possible": far fewer pieces than triangles (the ceiling is a regression bound
-      // recorded on this implementation, not a published figure).
+      // recorded on this implementation, not a published figure; the bunny's 48 is its count before sharp creases
+      // became chart borders, 43 after).
       expect(stretch.length).toBeLessThanOrEqual(maxPieces);
       for (const s of stretch) expect(s).toBeLessThanOrEqual(3);
       // Every seam edge has both half-edges marked (SeamMask convention).
