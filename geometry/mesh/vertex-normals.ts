@@ -1,3 +1,6 @@
+import { cornerAngles } from './corner-angles';
+import { unitFaceNormals } from './face-normals';
+
 /**
  * Returns unit vertex normals, Float64Array(3V): the sum of the incident face normals weighted by the corner
  * angle at the vertex (Thürmer & Wüthrich 1998, "Computing vertex normals from polygonal facets"), which does
@@ -6,32 +9,15 @@
  */
 export function vertexNormals(positions: Float64Array, triangles: Uint32Array): Float64Array {
   const out = new Float64Array(positions.length);
-  for (let f = 0; f < triangles.length; f += 3) {
-    const a = 3 * triangles[f];
-    const b = 3 * triangles[f + 1];
-    const c = 3 * triangles[f + 2];
-    const ux = positions[b] - positions[a], uy = positions[b + 1] - positions[a + 1], uz = positions[b + 2] - positions[a + 2];
-    const vx = positions[c] - positions[a], vy = positions[c + 1] - positions[a + 1], vz = positions[c + 2] - positions[a + 2];
-    let nx = uy * vz - uz * vy;
-    let ny = uz * vx - ux * vz;
-    let nz = ux * vy - uy * vx;
-    const l = Math.hypot(nx, ny, nz);
-    if (!(l > 0) || !Number.isFinite(l)) continue;
-    nx /= l;
-    ny /= l;
-    nz /= l;
-    const corners = [a, b, c];
-    for (let i = 0; i < 3; i++) {
-      const p = corners[i];
-      const q = corners[(i + 1) % 3];
-      const r = corners[(i + 2) % 3];
-      const ex = positions[q] - positions[p], ey = positions[q + 1] - positions[p + 1], ez = positions[q + 2] - positions[p + 2];
-      const gx = positions[r] - positions[p], gy = positions[r + 1] - positions[p + 1], gz = positions[r + 2] - positions[p + 2];
-      const w = Math.atan2(Math.hypot(ey * gz - ez * gy, ez * gx - ex * gz, ex * gy - ey * gx), ex * gx + ey * gy + ez * gz);
-      out[p] += w * nx;
-      out[p + 1] += w * ny;
-      out[p + 2] += w * nz;
-    }
+  const normals = unitFaceNormals(positions, triangles);
+  const angles = cornerAngles(positions, triangles);
+  for (let c = 0; c < triangles.length; c++) {
+    const p = 3 * triangles[c];
+    const n = c - (c % 3);
+    const w = angles[c];
+    out[p] += w * normals[n];
+    out[p + 1] += w * normals[n + 1];
+    out[p + 2] += w * normals[n + 2];
   }
   for (let i = 0; i < out.length; i += 3) {
     const l = Math.hypot(out[i], out[i + 1], out[i + 2]);

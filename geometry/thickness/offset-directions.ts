@@ -7,6 +7,9 @@
  * a − 2t/√3.
  */
 
+import { cornerAngles } from '../mesh/corner-angles';
+import { unitFaceNormals } from '../mesh/face-normals';
+
 /** Face normals spread wider than this from the vertex normal make a vertex a crease vertex, degrees. */
 export const CREASE_SPREAD_DEG = 10;
 
@@ -35,42 +38,29 @@ export function offsetDirections(positions: Float64Array, triangles: Uint32Array
   const normalMatrix = new Float64Array(6 * V);
   const b = new Float64Array(3 * V);
   const minCos = new Float64Array(V).fill(1);
-  for (let f = 0; f < triangles.length; f += 3) {
-    const a = 3 * triangles[f];
-    const c1 = 3 * triangles[f + 1];
-    const c2 = 3 * triangles[f + 2];
-    const ux = positions[c1] - positions[a], uy = positions[c1 + 1] - positions[a + 1], uz = positions[c1 + 2] - positions[a + 2];
-    const vx = positions[c2] - positions[a], vy = positions[c2 + 1] - positions[a + 1], vz = positions[c2 + 2] - positions[a + 2];
-    let nx = uy * vz - uz * vy;
-    let ny = uz * vx - ux * vz;
-    let nz = ux * vy - uy * vx;
-    const l = Math.hypot(nx, ny, nz);
-    if (!(l > 0) || !Number.isFinite(l)) continue;
-    nx /= l;
-    ny /= l;
-    nz /= l;
-    const corners = [a, c1, c2];
-    for (let i = 0; i < 3; i++) {
-      const p = corners[i];
-      const q = corners[(i + 1) % 3];
-      const r = corners[(i + 2) % 3];
-      const ex = positions[q] - positions[p], ey = positions[q + 1] - positions[p + 1], ez = positions[q + 2] - positions[p + 2];
-      const gx = positions[r] - positions[p], gy = positions[r + 1] - positions[p + 1], gz = positions[r + 2] - positions[p + 2];
-      const w = Math.atan2(Math.hypot(ey * gz - ez * gy, ez * gx - ex * gz, ex * gy - ey * gx), ex * gx + ey * gy + ez * gz);
-      const v = p / 3;
-      const k = 6 * v;
-      normalMatrix[k] += w * nx * nx;
-      normalMatrix[k + 1] += w * nx * ny;
-      normalMatrix[k + 2] += w * nx * nz;
-      normalMatrix[k + 3] += w * ny * ny;
-      normalMatrix[k + 4] += w * ny * nz;
-      normalMatrix[k + 5] += w * nz * nz;
-      b[p] += w * nx;
-      b[p + 1] += w * ny;
-      b[p + 2] += w * nz;
-      const cos = nx * normals[p] + ny * normals[p + 1] + nz * normals[p + 2];
-      if (cos < minCos[v]) minCos[v] = cos;
-    }
+  const faceNormals = unitFaceNormals(positions, triangles);
+  const angles = cornerAngles(positions, triangles);
+  for (let c = 0; c < triangles.length; c++) {
+    const n = c - (c % 3);
+    const nx = faceNormals[n];
+    const ny = faceNormals[n + 1];
+    const nz = faceNormals[n + 2];
+    if (nx === 0 && ny === 0 && nz === 0) continue;
+    const p = 3 * triangles[c];
+    const w = angles[c];
+    const v = p / 3;
+    const k = 6 * v;
+    normalMatrix[k] += w * nx * nx;
+    normalMatrix[k + 1] += w * nx * ny;
+    normalMatrix[k + 2] += w * nx * nz;
+    normalMatrix[k + 3] += w * ny * ny;
+    normalMatrix[k + 4] += w * ny * nz;
+    normalMatrix[k + 5] += w * nz * nz;
+    b[p] += w * nx;
+    b[p + 1] += w * ny;
+    b[p + 2] += w * nz;
+    const cos = nx * normals[p] + ny * normals[p + 1] + nz * normals[p + 2];
+    if (cos < minCos[v]) minCos[v] = cos;
   }
   const out = new Float64Array(3 * V);
   const smooth = Math.cos((CREASE_SPREAD_DEG * Math.PI) / 180);
