@@ -5,14 +5,17 @@
  * - 'piece-per-page': each piece on its own page (or its own tiles when bigger than a page);
  * - 'stock-sheet': each stock sheet of the sheet plan on one page of the sheet's size (large-format print
  *   or projector), every copy where the plan puts it.
- * The squares never cover a piece: each page gets a spot that clipper proves free (scale-square-spot.ts);
- * when some page of an area has none, that area is re-tiled with a strip kept free for them on every page.
+ * The squares never cover a piece: each page gets a spot that clipper proves free (scale-square-spot.ts).
+ * Tiled templates are also arranged around a block kept clear on every tile (arrange-templates.ts) and
+ * with a strip kept free on every page; of the layouts that give every page a spot, the one with the
+ * fewest pages wins (plain first, then the blocks, then the strip). Other modes fall back to the strip
+ * only when some page has no free spot.
  */
 import { GeometryError } from '../errors';
 import { boundsOf, placeRing, type BoundsMm } from '../layout/outline-transform';
 import type { SheetPlan } from '../layout/plan-sheets';
 import type { PatternDoc, PatternPiece, PointMm } from '../pattern/pattern-doc';
-import { arrangeTemplates, templateRotationDeg } from './arrange-templates';
+import { arrangeTemplates, templateArrangements, templateRotationDeg, type TemplateArrangement } from './arrange-templates';
 import { declutterTexts } from './declutter-texts';
 import type { PageSize } from './page-sizes';
 import { markedCopyIndex, pieceDrawing, templateCopies, type PieceDrawing } from './piece-drawing';
@@ -106,8 +109,8 @@ function placeSquares(area: PrintArea): PointMm[] | null {
   return out;
 }
 
-function tiledArea(doc: PatternDoc, page: string, tile: TileOptions): PrintArea {
-  const arr = arrangeTemplates(doc, page, tile);
+function tiledArea(doc: PatternDoc, page: string, tile: TileOptions, given?: TemplateArrangement): PrintArea {
+  const arr = given ?? arrangeTemplates(doc, page, tile);
   const drawings = arr.items.map((it) => pieceDrawing(it.piece, doc, it.transform, copyNote(it.piece, it.copyIndex), it.copyIndex));
   return areaOf('templates', arr.widthMm, arr.heightMm, drawings, arr.items.map((it) => it.piece.label), arr.grid);
 }
@@ -179,6 +182,20 @@ export function printSetPages(doc: PatternDoc, plan: SheetPlan, opts: PrintPages
   for (const build of builders) {
     let area = build(false);
     let corners = placeSquares(area);
+    if (opts.mode === 'tiled') {
+      // Templates arranged around a block kept clear on every tile, or the strip layout, when either needs
+      // fewer pages than the plain arrangement (or it leaves some page without a spot).
+      const alts = [...templateArrangements(doc, opts.page, tile, undefined, true).map((a) => () => tiledArea(doc, opts.page, tile, a)), () => build(true)];
+      for (const make of alts) {
+        const alt = make();
+        if (corners && alt.grid.tiles.length >= area.grid.tiles.length) continue;
+        const altCorners = placeSquares(alt);
+        if (altCorners) {
+          area = alt;
+          corners = altCorners;
+        }
+      }
+    }
     if (!corners) {
       area = build(true);
       corners = placeSquares(area) as PointMm[];

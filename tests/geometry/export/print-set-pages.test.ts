@@ -6,12 +6,14 @@ import { Clipper, FillRule, Paths64 } from 'clipper2-js';
 import { afterAll, describe, expect, it } from 'vitest';
 import { printSetPages, type PrintMode } from '../../../geometry/export/print-set-pages';
 import { printSetPdf } from '../../../geometry/export/print-set-pdf';
-import { SCALE_SQUARE_FOOTPRINT_MM, SCALE_SQUARE_SIDE_MM } from '../../../geometry/export/scale-square-spot';
+import { arrangeTemplates, templateArrangements } from '../../../geometry/export/arrange-templates';
+import { SCALE_SQUARE_FOOTPRINT_MM, SCALE_SQUARE_SIDE_MM, SCALE_STRIP_MM } from '../../../geometry/export/scale-square-spot';
 import { drawingToPage } from '../../../geometry/export/tile-pages';
 import { CLIPPER_SCALE, ringToPath64 } from '../../../geometry/layout/clipper-paths';
+import { boundsOf, placeRing } from '../../../geometry/layout/outline-transform';
 import { planSheets } from '../../../geometry/layout/plan-sheets';
 import type { PatternDoc, PointMm } from '../../../geometry/pattern/pattern-doc';
-import { helmetLikeDoc, manyPieceDoc } from '../../fixtures/pattern-docs/shape-docs';
+import { helmetLikeDoc, manyPieceDoc, piece } from '../../fixtures/pattern-docs/shape-docs';
 
 const root = path.join(__dirname, '..', '..', '..');
 const font = (f: string) => new Uint8Array(readFileSync(path.join(root, 'public', 'fonts', f)));
@@ -68,18 +70,56 @@ describe('printSetPages: the scale-check squares never hide a piece (W1 brief, i
     const doc = helmetLikeDoc();
     expect(coveredPieces(doc, 'a4', 'piece-per-page')).toEqual([]);
     expect(coveredPieces(doc, 'letter', 'stock-sheet')).toEqual([]);
-    // A full 1000×500 mm sheet: the planner packs it, so the page grows a strip under the sheet.
+    // A 1000×500 mm sheet packed by the planner: the squares find a free spot, or a strip under the sheet.
     const full = manyPieceDoc(30, 1, 8);
     expect(coveredPieces(full, 'a4', 'stock-sheet')).toEqual([]);
   });
 
-  it('falls back to a strip kept clear on every page when the drawing leaves no free spot', () => {
-    // 40 plates packed in shelves leave no 4 in hole on some A4 tile.
-    const doc = manyPieceDoc(40, 1, 21);
-    const { areas, pages } = printSetPages(doc, planSheets(doc), { page: 'a4', mode: 'tiled' });
+  it('tiled templates keep a block clear on every tile instead of a full-width strip, on no more pages (W8 brief)', () => {
+    // The old layout re-tiled the whole drawing with a strip SCALE_STRIP_MM deep across every page; the
+    // arrangement around per-tile blocks must need no more pages and keep the full printable window.
+    for (const doc of [helmetLikeDoc(), manyPieceDoc(40, 1, 21)]) {
+      const { areas, pages } = printSetPages(doc, planSheets(doc), { page: 'a4', mode: 'tiled' });
+      const g = areas[0].grid;
+      const strip = arrangeTemplates(doc, 'a4', { reserveMm: SCALE_STRIP_MM });
+      expect(pages.length).toBeLessThanOrEqual(strip.grid.tiles.length);
+      expect(g.reserved).toBeNull();
+      expect(g.window.height).toBeCloseTo(g.page.heightMm - 2 * g.marginMm - g.headerMm, 9);
+      expect(g.window.width).toBeCloseTo(g.page.widthMm - 2 * g.marginMm, 9);
+    }
+    // 40 plates: the strip layout took 15 A4 pages, the blocks 14 (measured when this check was written).
+    const dense = manyPieceDoc(40, 1, 21);
+    expect(printSetPages(dense, planSheets(dense), { page: 'a4', mode: 'tiled' }).pages.length).toBeLessThan(
+      arrangeTemplates(dense, 'a4', { reserveMm: SCALE_STRIP_MM }).grid.tiles.length,
+    );
+  });
+
+  it('templates arranged around the blocks keep their 12 mm gap and stay inside the drawing', () => {
+    // Shelf packing (Coffman et al. 1980): boxes never overlap; here each pair is at least the gap apart.
+    const doc = manyPieceDoc(20, 1, 5);
+    for (const arr of templateArrangements(doc, 'a4', {}, 12, true)) {
+      const boxes = arr.items.map((it) => boundsOf(placeRing(it.piece.outline, it.transform)));
+      boxes.forEach((p, i) => {
+        expect(p.minX).toBeGreaterThanOrEqual(12 - 1e-6);
+        expect(p.minY).toBeGreaterThanOrEqual(12 - 1e-6);
+        expect(p.maxX).toBeLessThanOrEqual(arr.widthMm - 12 + 1e-6);
+        expect(p.maxY).toBeLessThanOrEqual(arr.heightMm - 12 + 1e-6);
+        for (const q of boxes.slice(i + 1)) {
+          const apart = Math.max(q.minX - p.maxX, p.minX - q.maxX, q.minY - p.maxY, p.minY - q.maxY);
+          expect(apart).toBeGreaterThanOrEqual(12 - 1e-6);
+        }
+      });
+    }
+  });
+
+  it('falls back to a strip kept clear when one piece fills its page (piece-per-page)', () => {
+    // A 180×250 mm plate fills the A4 printable window (198×276 mm less the 9 mm header), leaving no 4 in hole.
+    const doc: PatternDoc = { units: 'mm', name: 'Big plate', pieces: [piece('P', rect(0, 0, 180, 250))], seams: [], warnings: [] };
+    const { areas, pages } = printSetPages(doc, planSheets(doc), { page: 'a4', mode: 'piece-per-page' });
     expect(areas[0].grid.reserved).not.toBeNull();
-    const r = areas[0].grid.reserved!;
+    expect(coveredPieces(doc, 'a4', 'piece-per-page')).toEqual([]);
     for (const p of pages) {
+      const r = p.area.grid.reserved!;
       expect(p.squareCorner[0]).toBeGreaterThanOrEqual(r.left);
       expect(p.squareCorner[1]).toBeLessThanOrEqual(r.top + r.height);
       expect(p.squareCorner[1] - SCALE_SQUARE_FOOTPRINT_MM.height).toBeGreaterThanOrEqual(r.top);
