@@ -2,10 +2,10 @@
  * Arranges one paper template per piece for the tiled print: each piece turned square to the page (its
  * minimum-area rectangle along the axes; the sheet plan's nesting turns are separate), in
  * shelves (rows) across a strip whose width is a whole number of page steps, choosing the width that
- * needs the fewest pages. Paper is cheap, so simple shelves (Coffman et al. 1980, next-fit decreasing
- * height) are enough here; foam is nested true-shape in layout/plan-sheets.ts. With `keepOut`, the tiles'
+ * needs the fewest pages. Paper is cheap, so simple shelves are enough here (Coffman et al. 1980,
+ * decreasing height; the open shelf takes the tallest template that still fits before a new one opens); foam is nested true-shape in layout/plan-sheets.ts. With `keepOut`, the tiles'
  * positions in the drawing are known in advance (page step = window minus overlap), so each tile keeps a
- * block for the check squares at one corner of its window, and the shelves place templates around the
+ * block for the check squares at a corner (or edge middle, or centre) of its window, and the shelves place templates around the
  * blocks; every page then has room for the squares without a strip across the whole page.
  */
 import type { PatternDoc, PatternPiece } from '../pattern/pattern-doc';
@@ -57,7 +57,7 @@ interface Box {
 
 const meets = (a: Box, b: Box) => a.x0 < b.x1 && b.x0 < a.x1 && a.d0 < b.d1 && b.d0 < a.d1;
 
-/** Page lattice of a strip: window size and step, for the keep-out corner of every tile. */
+/** Page lattice of a strip: window size and step, for the keep-out block of every tile. */
 interface Lattice {
   winW: number;
   winH: number;
@@ -70,7 +70,7 @@ interface Lattice {
  * those spots that no template uses.
  */
 class KeepOuts {
-  private corner = new Map<string, number>();
+  private spot = new Map<string, number>();
   private placed: Box[] = [];
   constructor(private lat: Lattice) {}
 
@@ -94,14 +94,14 @@ class KeepOuts {
   }
 
   /**
-   * The corner moves that let `b` be placed (empty when none are needed), or null when some tile's
+   * The block moves that let `b` be placed (empty when none are needed), or null when some tile's
    * block cannot go anywhere clear. The right edge of the blocking block comes back for the caller to skip.
    */
-  fit(b: Box): { moves: Array<[string, number]> } | { blockedTo: number; blockedBelow: number } {
+  fit(b: Box): { moves: Array<[string, number]> } | { blockedTo: number } {
     const moves: Array<[string, number]> = [];
     for (const [r, c] of this.tilesUnder(b)) {
       const key = `${r},${c}`;
-      const k = this.corner.get(key) ?? 0;
+      const k = this.spot.get(key) ?? 0;
       if (k < 0) continue;
       const cur = this.block(r, c, k);
       if (!meets(cur, b)) continue;
@@ -109,20 +109,20 @@ class KeepOuts {
         const q = this.block(r, c, j);
         return !meets(q, b) && this.placed.every((p) => !meets(q, p));
       });
-      if (alt === undefined) return { blockedTo: cur.x1, blockedBelow: cur.d1 };
+      if (alt === undefined) return { blockedTo: cur.x1 };
       moves.push([key, alt]);
     }
     return { moves };
   }
 
-  /** Records `b` as taken, applying its corner moves; `force` gives up the blocks of tiles it still covers. */
+  /** Records `b` as taken, applying its block moves; `force` gives up the blocks of tiles it still covers. */
   take(b: Box, moves: Array<[string, number]>, force = false): void {
-    for (const [key, k] of moves) this.corner.set(key, k);
+    for (const [key, k] of moves) this.spot.set(key, k);
     if (force) {
       for (const [r, c] of this.tilesUnder(b)) {
         const key = `${r},${c}`;
-        const k = this.corner.get(key) ?? 0;
-        if (k >= 0 && meets(this.block(r, c, k), b)) this.corner.set(key, -1);
+        const k = this.spot.get(key) ?? 0;
+        if (k >= 0 && meets(this.block(r, c, k), b)) this.spot.set(key, -1);
       }
     }
     this.placed.push(b);
