@@ -1,11 +1,12 @@
 /**
  * Arranges one paper template per piece for the tiled print: each piece turned square to the page (its
- * minimum-area rectangle along the axes; the sheet plan's nesting turns are separate), in
- * shelves (rows) across a strip whose width is a whole number of page steps, choosing the width that
- * needs the fewest pages. Paper is cheap, so simple shelves are enough here (Coffman et al. 1980,
- * decreasing height; the open shelf takes the tallest template that still fits before a new one opens); foam is nested true-shape in layout/plan-sheets.ts. With `keepOut`, the tiles'
- * positions in the drawing are known in advance (page step = window minus overlap), so each tile keeps a
- * block for the check squares at a corner (or edge middle, or centre) of its window, and the shelves place templates around the
+ * minimum-area rectangle along the axes; the sheet plan's nesting turns are separate), in shelves
+ * (rows) across a strip whose width is a whole number of page steps, choosing the width that needs the
+ * fewest pages. Paper is cheap, so simple shelves are enough here (Coffman et al. 1980, decreasing
+ * height; the open shelf takes the tallest template that still fits before a new one opens); foam is
+ * nested true-shape in layout/plan-sheets.ts. With `keepOut`, the tiles' positions in the drawing are
+ * known in advance (page step = window minus overlap), so each tile keeps a block for the check squares
+ * at a corner, an edge middle or the centre of its window, and the shelves place templates around the
  * blocks; every page then has room for the squares without a strip across the whole page.
  */
 import type { PatternDoc, PatternPiece } from '../pattern/pattern-doc';
