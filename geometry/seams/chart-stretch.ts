@@ -37,24 +37,10 @@ export function isoperimetricallyPossible(g: FaceGraph, faces: ArrayLike<number>
  * `arapIterations` caps the ARAP rounds (default flattenPiece's).
  */
 export function chartStretchPct(mesh: TriMesh, faces: Int32Array, arapIterations?: number): number {
-  const remap = new Map<number, number>();
-  const triangles = new Uint32Array(3 * faces.length);
-  const coords: number[] = [];
-  faces.forEach((f, i) => {
-    for (let k = 0; k < 3; k++) {
-      const v = mesh.triangles[3 * f + k];
-      let lv = remap.get(v);
-      if (lv === undefined) {
-        lv = remap.size;
-        remap.set(v, lv);
-        coords.push(mesh.positions[3 * v], mesh.positions[3 * v + 1], mesh.positions[3 * v + 2]);
-      }
-      triangles[3 * i + k] = lv;
-    }
-  });
+  const { positions, triangles } = chartPiece(mesh, faces);
   try {
     const flat = flattenPiece(
-      { positions: Float64Array.from(coords), triangles },
+      { positions, triangles },
       arapIterations === undefined ? undefined : { arapIterations },
     );
     return flat.flipped > 0 ? Infinity : flat.stretch.maxPct;
@@ -64,3 +50,36 @@ export function chartStretchPct(mesh: TriMesh, faces: Int32Array, arapIterations
   }
 }
 
+/**
+ * Per mesh, a vertex-indexed scratch for renumbering (local number, and the call that wrote it), so a trial
+ * costs time in its own size rather than the whole mesh's; held weakly, so it goes with the mesh.
+ */
+const scratchOf = new WeakMap<TriMesh, { local: Int32Array; stampOf: Int32Array; stamp: number }>();
+
+/** The chart's faces as a piece of their own (mm): vertices renumbered in order of first use. */
+function chartPiece(mesh: TriMesh, faces: Int32Array): TriMesh {
+  let scratch = scratchOf.get(mesh);
+  if (!scratch) {
+    const V = mesh.positions.length / 3;
+    scratch = { local: new Int32Array(V), stampOf: new Int32Array(V), stamp: 0 };
+    scratchOf.set(mesh, scratch);
+  }
+  const stamp = ++scratch.stamp;
+  const { local, stampOf } = scratch;
+  const triangles = new Uint32Array(3 * faces.length);
+  const order: number[] = [];
+  for (let i = 0; i < faces.length; i++) {
+    for (let k = 0; k < 3; k++) {
+      const v = mesh.triangles[3 * faces[i] + k];
+      if (stampOf[v] !== stamp) {
+        stampOf[v] = stamp;
+        local[v] = order.length;
+        order.push(v);
+      }
+      triangles[3 * i + k] = local[v];
+    }
+  }
+  const positions = new Float64Array(3 * order.length);
+  for (let i = 0; i < order.length; i++) positions.set(mesh.positions.subarray(3 * order[i], 3 * order[i] + 3), 3 * i);
+  return { positions, triangles };
+}
