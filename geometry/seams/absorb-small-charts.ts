@@ -40,22 +40,20 @@ export function absorbSmallCharts(
     const share = shareOut(g, chartOf, c, faces);
     if (!share) continue;
     // Every receiving chart must still fit, and none is tried when its stretch, grown with its area (see
-    // splitUntilFit), is expected far over budget.
-    let ok = true;
+    // splitUntilFit), is expected far over budget. All estimates are checked before any trial flattening, and
+    // the receivers expected to stretch most are tried first: one failure settles the chart, so the likeliest
+    // failure is best paid for first (the outcome does not depend on the order).
+    const expected = new Map<number, number>();
+    for (const [n, part] of share) expected.set(n, stretches[n] * ((area[n] + chartArea(g, part)) / area[n]));
+    let ok = [...expected.values()].every((e) => !(e > ABSORB_SKIP_FACTOR * budget));
     const trial = new Map<number, { faces: Int32Array; stretch: number }>();
-    for (const [n, part] of share) {
-      const grown = area[n] + chartArea(g, part);
-      if (stretches[n] * (grown / area[n]) > ABSORB_SKIP_FACTOR * budget) {
-        ok = false;
-        break;
-      }
-      const union = Int32Array.from([...members[n], ...part]);
+    const receivers = [...share.keys()].sort((a, b) => expected.get(b)! - expected.get(a)! || a - b);
+    for (const n of receivers) {
+      if (!ok) break;
+      const union = Int32Array.from([...members[n], ...share.get(n)!]);
       const s = stretchOf(union);
-      if (!(s <= budget)) {
-        ok = false;
-        break;
-      }
-      trial.set(n, { faces: union, stretch: s });
+      if (!(s <= budget)) ok = false;
+      else trial.set(n, { faces: union, stretch: s });
     }
     if (!ok) continue;
     for (const [n, { faces: union, stretch }] of trial) {
