@@ -53,11 +53,16 @@ export function straightenChartBorders(
       for (let f = 0; f < g.faceCount; f++) if (chartOf[f] === c) out.push(f);
       return Int32Array.from(out);
     };
-    const sa = stretchOf(membersOf(a));
-    const sb = sa <= budget ? stretchOf(membersOf(b)) : Infinity;
-    if (sa <= budget && sb <= budget) {
-      stretches[a] = sa;
-      stretches[b] = sb;
+    // The chart that gained faces is the likelier to fail, so it is flattened first: a failure settles the
+    // move without flattening the other (the outcome does not depend on the order).
+    let gainOfA = 0;
+    for (const { from } of moved) gainOfA += from === b ? 1 : -1;
+    const [first, second] = gainOfA >= 0 ? [a, b] : [b, a];
+    const s1 = stretchOf(membersOf(first));
+    const s2 = s1 <= budget ? stretchOf(membersOf(second)) : Infinity;
+    if (s1 <= budget && s2 <= budget) {
+      stretches[first] = s1;
+      stretches[second] = s2;
       straightened++;
       continue;
     }
