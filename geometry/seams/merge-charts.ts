@@ -38,11 +38,13 @@ export function mergeCharts(
   const members: number[][] = Array.from({ length: chartCount }, () => []);
   for (let f = 0; f < g.faceCount; f++) if (chartOf[f] >= 0) members[chartOf[f]].push(f);
   const label = Int32Array.from(chartOf);
-  const skipped = new Set<string>();
+  // Pairs are numbered a·chartCount + b (a < b). A pair skipped on the estimate is remembered with the two
+  // charts' face count then, since charts only grow, an unchanged count means unchanged charts.
+  const skippedAt = new Map<number, number>();
   const failed = new Set<number>();
   for (let merged = true; merged; ) {
     merged = false;
-    const pairs = new Map<string, [number, number]>();
+    const pairs = new Map<number, [number, number]>();
     for (let f = 0; f < g.faceCount; f++) {
       for (let k = 0; k < 3; k++) {
         const t = g.twin[3 * f + k];
@@ -50,28 +52,30 @@ export function mergeCharts(
         const a = label[f];
         const b = label[(t / 3) | 0];
         if (a < 0 || (only && (!only[f] || !only[(t / 3) | 0]))) continue;
-        if (a < b) pairs.set(`${a}:${b}:${members[a].length}:${members[b].length}`, [a, b]);
+        if (a < b) pairs.set(a * chartCount + b, [a, b]);
       }
     }
-    const order = [...pairs.entries()].sort(
-      ([, [a1, b1]], [, [a2, b2]]) =>
+    const order = [...pairs.values()].sort(
+      ([a1, b1], [a2, b2]) =>
         members[a1].length + members[b1].length - members[a2].length - members[b2].length || a1 - a2 || b1 - b2,
     );
     const touched = new Uint8Array(chartCount);
-    for (const [key, [a, b]] of order) {
-      if (touched[a] || touched[b] || skipped.has(key) || failed.has(a * chartCount + b)) continue;
+    for (const [a, b] of order) {
+      const pair = a * chartCount + b;
+      const size = members[a].length + members[b].length;
+      if (touched[a] || touched[b] || skippedAt.get(pair) === size || failed.has(pair)) continue;
       // Expected stretch of the union: each part's stretch grown with the area it would become (see
       // splitUntilFit); a union expected well over budget is not worth a trial flattening.
       const unionArea = area[a] + area[b];
       const expected = Math.max(stretch[a] * (unionArea / area[a]), stretch[b] * (unionArea / area[b]));
       if (expected > MERGE_SKIP_FACTOR * budget) {
-        skipped.add(key);
+        skippedAt.set(pair, size);
         continue;
       }
       const union = Int32Array.from([...members[a], ...members[b]]);
       const unionStretch = stretchOf(union);
       if (!(unionStretch <= budget)) {
-        failed.add(a * chartCount + b);
+        failed.add(pair);
         continue;
       }
       stretch[a] = unionStretch;
