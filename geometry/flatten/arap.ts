@@ -2,7 +2,6 @@ import { GeometryError } from '../errors';
 import { choleskyFactor } from '../sparse/cholesky';
 import { principalSubmatrix } from '../sparse/sparse-symmetric-matrix';
 import { preparePiece, restrictOrder, type PreparedPiece } from './prepared-piece';
-import { signedAreas } from './signed-area';
 
 export interface ArapOptions {
   /** Most local/global rounds (default 60). */
@@ -66,8 +65,12 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
     throw new GeometryError('FLATTEN_FAILED', `ARAP system could not be factored: ${(e as Error).message}`);
   }
 
-  let uv: Float64Array = Float64Array.from(initialUV);
-  let flips = countInverted(signedAreas(uv, triangles));
+  // Two coordinate buffers swapped each accepted round, and one for the global step's target, so a round
+  // allocates nothing (trial flattenings of small charts run thousands of these).
+  let uv = Float64Array.from(initialUV);
+  let spare = new Float64Array(2 * nv);
+  const target = new Float64Array(2 * nv);
+  let flips = invertedCount(uv, triangles);
   const rot = new Float64Array(2 * nf); // cos, sin per triangle
   const rhsU = new Float64Array(nv - 1);
   const rhsV = new Float64Array(nv - 1);
@@ -84,50 +87,50 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
     rhsV.fill(0);
     const hu = uv[2 * held];
     const hv = uv[2 * held + 1];
-    for (let h = 0; h < 3 * nf; h++) {
-      const f = (h / 3) | 0;
-      const i = h % 3;
-      const j = (i + 1) % 3;
-      const a = triangles[h];
-      const b = triangles[3 * f + j];
-      const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
-      const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+    for (let f = 0; f < nf; f++) {
       const c = rot[2 * f];
       const s = rot[2 * f + 1];
-      const w = 0.5 * cot[h];
-      const gx = w * (c * dx - s * dy);
-      const gy = w * (s * dx + c * dy);
-      const ia = index[a];
-      const ib = index[b];
-      if (ia >= 0) {
-        rhsU[ia] += gx;
-        rhsV[ia] += gy;
-        if (ib < 0) {
-          rhsU[ia] += w * hu;
-          rhsV[ia] += w * hv;
+      for (let i = 0; i < 3; i++) {
+        const j = i === 2 ? 0 : i + 1;
+        const h = 3 * f + i;
+        const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
+        const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+        const w = 0.5 * cot[h];
+        const gx = w * (c * dx - s * dy);
+        const gy = w * (s * dx + c * dy);
+        const ia = index[triangles[h]];
+        const ib = index[triangles[3 * f + j]];
+        if (ia >= 0) {
+          rhsU[ia] += gx;
+          rhsV[ia] += gy;
+          if (ib < 0) {
+            rhsU[ia] += w * hu;
+            rhsV[ia] += w * hv;
+          }
         }
-      }
-      if (ib >= 0) {
-        rhsU[ib] -= gx;
-        rhsV[ib] -= gy;
-        if (ia < 0) {
-          rhsU[ib] += w * hu;
-          rhsV[ib] += w * hv;
+        if (ib >= 0) {
+          rhsU[ib] -= gx;
+          rhsV[ib] -= gy;
+          if (ia < 0) {
+            rhsU[ib] += w * hu;
+            rhsV[ib] += w * hv;
+          }
         }
       }
     }
     factor.solve(rhsU, solU);
     factor.solve(rhsV, solV);
-    const target = new Float64Array(2 * nv);
     for (let v = 0; v < nv; v++) {
       const k = index[v];
       target[2 * v] = k < 0 ? hu : solU[k];
       target[2 * v + 1] = k < 0 ? hv : solV[k];
     }
-    const accepted = guardedStep(uv, target, triangles, flips);
-    if (accepted === null) break;
-    uv = accepted.uv;
-    flips = accepted.flips;
+    const accepted = guardedStep(uv, target, spare, triangles, flips);
+    if (accepted < 0) break;
+    const previous = uv;
+    uv = spare;
+    spare = previous;
+    flips = accepted;
   }
   for (let i = 0; i < uv.length; i++) {
     if (!Number.isFinite(uv[i])) {
@@ -137,27 +140,37 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
   return uv;
 }
 
-/** The step toward `target`, halved until it inverts no more triangles than `flips`; null if none does. */
+/**
+ * The step toward `target`, halved until it inverts no more triangles than `flips`, written into `trial`;
+ * returns the inverted count of the step taken, or −1 if no step keeps the count.
+ */
 function guardedStep(
   uv: Float64Array,
   target: Float64Array,
+  trial: Float64Array,
   triangles: Uint32Array,
   flips: number,
-): { uv: Float64Array; flips: number } | null {
+): number {
   let step = 1;
-  const trial = new Float64Array(uv.length);
   for (let halving = 0; halving <= 12; halving++) {
     for (let i = 0; i < uv.length; i++) trial[i] = uv[i] + step * (target[i] - uv[i]);
-    const n = countInverted(signedAreas(trial, triangles));
-    if (n <= flips) return { uv: trial, flips: n };
+    const n = invertedCount(trial, triangles);
+    if (n <= flips) return n;
     step *= 0.5;
   }
-  return null;
+  return -1;
 }
 
-function countInverted(areas: Float64Array): number {
+/** Triangles whose signed area in `uv` (the shoelace formula, as signedAreas) is not positive. */
+function invertedCount(uv: Float64Array, triangles: Uint32Array): number {
   let n = 0;
-  for (let f = 0; f < areas.length; f++) if (!(areas[f] > 0)) n++;
+  for (let t = 0; t < triangles.length; t += 3) {
+    const a = 2 * triangles[t];
+    const b = 2 * triangles[t + 1];
+    const c = 2 * triangles[t + 2];
+    const area = 0.5 * ((uv[b] - uv[a]) * (uv[c + 1] - uv[a + 1]) - (uv[c] - uv[a]) * (uv[b + 1] - uv[a + 1]));
+    if (!(area > 0)) n++;
+  }
   return n;
 }
 
