@@ -47,12 +47,13 @@ export interface AppDeps {
 export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean): MountableRoute[] {
   const key = sessionKey(deps.sessionSecret);
   const signInLimit = deps.signInLimit ?? { max: deps.env.SIGNIN_RATE_LIMIT, windowMs: deps.env.SIGNIN_RATE_WINDOW_MINUTES * 60_000 };
+  const files = deps.files ?? localDiskStore(deps.env.FILES_DIR);
   return [
     ...healthRoutes(deps.pool),
     ...authRoutes({ db: deps.db, sessionKey: key, cookieSecure, signInLimit }),
     ...shopRoutes(deps.db),
-    ...buildRoutes(deps.db),
-    ...printSetRoutes({ db: deps.db, files: deps.files ?? localDiskStore(deps.env.FILES_DIR), jobs: deps.jobs ?? null }),
+    ...buildRoutes({ db: deps.db, files }),
+    ...printSetRoutes({ db: deps.db, files, jobs: deps.jobs ?? null }),
     ...auditRoutes(deps.db),
     ...adminRoutes(deps.db),
   ];

@@ -3,10 +3,17 @@ import type { Db } from '../../db/client';
 import { buildCreateBody, buildRenameBody } from '../../db/validation';
 import { defineRoute, type MountableRoute } from '../http/define-route';
 import { buildParams, shopParams } from '../http/params';
+import type { FileStore } from '../storage/file-store';
 import { createBuild, getBuild, listBuilds, removeBuild, renameBuild } from './service';
 
+export interface BuildRouteDeps {
+  db: Db;
+  /** Where print-set files are kept; deleting a build removes its print sets' files from here. */
+  files: FileStore;
+}
+
 /** Returns the build routes. */
-export function buildRoutes(db: Db): MountableRoute[] {
+export function buildRoutes({ db, files }: BuildRouteDeps): MountableRoute[] {
   return [
     defineRoute({
       method: 'GET',
@@ -46,8 +53,8 @@ export function buildRoutes(db: Db): MountableRoute[] {
       path: '/api/shops/:shopId/builds/:buildId',
       access: { shopRole: 'owner' },
       params: buildParams,
-      handler: async ({ user, shop, params }) => {
-        await removeBuild(db, user, shop.id, params.buildId);
+      handler: async ({ user, shop, params, req }) => {
+        await removeBuild(db, files, req.log, user, shop.id, params.buildId);
         return { status: 204 };
       },
     }),

@@ -1,8 +1,12 @@
 /** Build rules: create, rename and delete are recorded in the shop's audit trail in the same transaction. */
+import type { Logger } from 'pino';
 import type { Db } from '../../db/client';
 import { recordAudit } from '../audit/service';
 import { notFound } from '../errors';
 import type { SessionUser } from '../http/define-route';
+import { printSetFilePrefix } from '../print-sets/print-set-files';
+import { selectPrintSetIdsOfBuild } from '../print-sets/queries';
+import type { FileStore } from '../storage/file-store';
 import { deleteBuild, insertBuild, selectBuild, selectBuilds, updateBuildName, type BuildRow } from './queries';
 
 export interface BuildView {
@@ -49,11 +53,22 @@ export function renameBuild(db: Db, user: SessionUser, shopId: string, buildId: 
   });
 }
 
-/** Deletes a build; throws 404 NOT_FOUND when the shop has no such build. */
-export function removeBuild(db: Db, user: SessionUser, shopId: string, buildId: string): Promise<void> {
-  return db.transaction(async (tx) => {
+/**
+ * Deletes a build; its print-set rows go with it (foreign key ON DELETE CASCADE). Their stored files are
+ * removed from `files` only after the delete has committed, so a rolled-back delete never loses files; a file
+ * that cannot be removed is logged on `log` and left behind, since the build is gone either way. Throws 404
+ * NOT_FOUND when the shop has no such build.
+ */
+export async function removeBuild(db: Db, files: FileStore, log: Logger, user: SessionUser, shopId: string, buildId: string): Promise<void> {
+  const printSetIds = await db.transaction(async (tx) => {
+    const ids = await selectPrintSetIdsOfBuild(tx, shopId, buildId);
     const row = await deleteBuild(tx, shopId, buildId);
     if (!row) throw notFound('Build');
     await recordAudit(tx, { shopId, userId: user.id, action: 'build.delete', target: `build:${buildId}`, detail: { name: row.name } });
+    return ids;
   });
+  for (const id of printSetIds) {
+    const prefix = printSetFilePrefix(id);
+    await files.removePrefix(prefix).catch((err: unknown) => log.error({ err, buildId, printSetId: id, prefix }, 'could not remove the files of a deleted build\'s print set'));
+  }
 }

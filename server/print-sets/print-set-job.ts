@@ -53,6 +53,9 @@ export async function runPrintSetJob({ db, files }: JobContext, data: unknown): 
     throw err;
   }
   const entries: PrintSetFileEntry[] = rendered.map((f) => ({ name: f.name, sizeBytes: f.bytes.byteLength, contentType: f.contentType }));
-  await markPrintSetDone(db, id, entries);
+  if (!(await markPrintSetDone(db, id, entries))) {
+    await files.removePrefix(printSetFilePrefix(id));
+    return { printSetId: id, skipped: 'deleted while rendering' };
+  }
   return { printSetId: id, status: 'done', files: entries.length };
 }

@@ -74,6 +74,15 @@ export function selectPrintSets(db: DbExecutor, shopId: string, buildId: string)
     .orderBy(desc(printSets.createdAt), desc(printSets.id));
 }
 
+/** Returns the ids of every print set of the shop's build (used to find their stored files). */
+export async function selectPrintSetIdsOfBuild(db: DbExecutor, shopId: string, buildId: string): Promise<string[]> {
+  const rows = await db
+    .select({ id: printSets.id })
+    .from(printSets)
+    .where(and(eq(printSets.shopId, shopId), eq(printSets.buildId, buildId)));
+  return rows.map((r) => r.id);
+}
+
 /** Returns one print set of the shop's build (without its pattern), or null. */
 export async function selectPrintSet(db: DbExecutor, shopId: string, buildId: string, id: string): Promise<PrintSetRow | null> {
   const rows = await db
@@ -96,9 +105,17 @@ export async function claimPrintSet(db: DbExecutor, id: string) {
   return rows[0] ?? null;
 }
 
-/** Marks a print set done with its stored files. */
-export async function markPrintSetDone(db: DbExecutor, id: string, files: PrintSetFileEntry[]): Promise<void> {
-  await db.update(printSets).set({ status: 'done', files, error: null, finishedAt: sql`now()` }).where(eq(printSets.id, id));
+/**
+ * Marks a print set done with its stored files. Returns false when the row is gone (its build was deleted
+ * while it rendered), so the caller can remove the files nothing points to any more.
+ */
+export async function markPrintSetDone(db: DbExecutor, id: string, files: PrintSetFileEntry[]): Promise<boolean> {
+  const rows = await db
+    .update(printSets)
+    .set({ status: 'done', files, error: null, finishedAt: sql`now()` })
+    .where(eq(printSets.id, id))
+    .returning({ id: printSets.id });
+  return rows.length > 0;
 }
 
 /** Marks a print set failed with a message for the maker; it keeps no files. */
