@@ -18,7 +18,10 @@
  * 3. every border is straightened (straighten-chart-borders.ts): faces move across when that shortens the seam
  *    in seam cost (length times visibility: creases, valleys, the underside and the back are cheaper; see
  *    seamVisibility), kept only when both charts still fit;
- * 4. every chart is checked with the full flattening and split again where it does not fit.
+ * 4. every chart is checked with the full flattening and split again where it does not fit;
+ * 5. faces that stick out of a chart's outline with two or three edges (teeth and notches of a saw-tooth seam)
+ *    are handed to the chart they stick into where both still pass the full flattening (remove-border-teeth.ts).
+ *    On a mirror-symmetric model this step is left out, so the pieces stay exact mirror pairs.
  * Trial flattenings use few ARAP rounds, and a chart that cannot fit by the isoperimetric inequality is never
  * flattened at all. A mirror-symmetric model is cut on one side of its symmetry plane and the charts are
  * mirrored onto the other side, so its pieces come in mirror pairs; where the plane crosses a flat region the
