@@ -10,6 +10,7 @@ import { registerWorkers } from './jobs/register-workers';
 import { startQueue, stopQueue } from './jobs/queue';
 import { JOB_TYPES } from './jobs/job-types';
 import { createLogger } from './logger';
+import { failStalePrintSets } from './print-sets/stale-print-sets';
 import { localDiskStore } from './storage/local-disk-store';
 
 async function main(): Promise<void> {
@@ -18,7 +19,10 @@ async function main(): Promise<void> {
   const pool = createPool(env.DATABASE_URL, 4);
   await runMigrations(pool);
   const boss = await startQueue(env.DATABASE_URL, logger, { supervise: true, schedule: true });
-  await registerWorkers(boss, { db: createDb(pool), files: localDiskStore(env.FILES_DIR) }, logger, { schedule: true, pollingIntervalSeconds: 2 });
+  const context = { db: createDb(pool), files: localDiskStore(env.FILES_DIR) };
+  await registerWorkers(boss, context, logger, { schedule: true, pollingIntervalSeconds: 2 });
+  // Print sets abandoned while no worker ran are failed now rather than at the first scheduled check.
+  logger.info({ result: await failStalePrintSets(context) }, 'stale print sets checked');
   logger.info({ jobTypes: JOB_TYPES.map((t) => t.name) }, 'worker ready');
 
   let stopping = false;

@@ -5,7 +5,8 @@
 import type PgBoss from 'pg-boss';
 import type { Db } from '../../db/client';
 import { pruneRateLimitHits } from '../auth/rate-limit-store';
-import { PRINT_SET_JOB, runPrintSetJob } from '../print-sets/print-set-job';
+import { PRINT_SET_JOB, PRINT_SET_QUEUE, runPrintSetJob } from '../print-sets/print-set-job';
+import { failStalePrintSets, STALE_PRINT_SETS_JOB } from '../print-sets/stale-print-sets';
 import type { FileStore } from '../storage/file-store';
 
 export interface JobContext {
@@ -32,9 +33,13 @@ export const JOB_TYPES: readonly JobType[] = [
   },
   {
     name: PRINT_SET_JOB,
-    // A bad pattern fails the same way every time and is recorded on the print set, so the job does not
-    // retry; a crashed worker's job is retried once. Ten minutes bounds a runaway render.
-    queue: { retryLimit: 1, retryDelay: 5, expireInSeconds: 600 },
+    queue: PRINT_SET_QUEUE,
     run: (context, data) => runPrintSetJob(context, data),
+  },
+  {
+    // A print-set job that died past its expiry would leave its print set queued or running for ever.
+    name: STALE_PRINT_SETS_JOB,
+    cron: '*/5 * * * *',
+    run: async (context) => failStalePrintSets(context),
   },
 ];

@@ -16,6 +16,12 @@ import { printSetFileKey, printSetFilePrefix } from './print-set-files';
 /** Queue name of the print-set job. */
 export const PRINT_SET_JOB = 'print-set-render';
 
+/**
+ * The print-set job's queue options. A bad pattern fails the same way every time and is recorded on the print
+ * set, so the job does not retry; a crashed worker's job is retried once. Ten minutes bounds a runaway render.
+ */
+export const PRINT_SET_QUEUE = { retryLimit: 1, retryDelay: 5, expireInSeconds: 600 } as const;
+
 const jobData = z.object({ printSetId: z.string().uuid() });
 
 /** Message stored on a print set that failed for a reason other than the pattern itself. */
@@ -55,7 +61,7 @@ export async function runPrintSetJob({ db, files }: JobContext, data: unknown): 
   const entries: PrintSetFileEntry[] = rendered.map((f) => ({ name: f.name, sizeBytes: f.bytes.byteLength, contentType: f.contentType }));
   if (!(await markPrintSetDone(db, id, entries))) {
     await files.removePrefix(printSetFilePrefix(id));
-    return { printSetId: id, skipped: 'deleted while rendering' };
+    return { printSetId: id, skipped: 'deleted or given up on while rendering' };
   }
   return { printSetId: id, status: 'done', files: entries.length };
 }

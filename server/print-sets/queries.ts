@@ -1,5 +1,5 @@
 /** Drizzle queries for print sets; reads are scoped to a shop and build so one shop's id never reaches another's. */
-import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, lt, or, sql } from 'drizzle-orm';
 import type { DbExecutor } from '../../db/client';
 import { printSets, type PrintSetFileEntry } from '../../db/schema';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
@@ -106,14 +106,15 @@ export async function claimPrintSet(db: DbExecutor, id: string) {
 }
 
 /**
- * Marks a print set done with its stored files. Returns false when the row is gone (its build was deleted
- * while it rendered), so the caller can remove the files nothing points to any more.
+ * Marks a running print set done with its stored files. Returns false when the row is gone (its build was
+ * deleted while it rendered) or no longer running (given up on as stale, see stale-print-sets.ts), so the
+ * caller can remove the files nothing points to any more.
  */
 export async function markPrintSetDone(db: DbExecutor, id: string, files: PrintSetFileEntry[]): Promise<boolean> {
   const rows = await db
     .update(printSets)
     .set({ status: 'done', files, error: null, finishedAt: sql`now()` })
-    .where(eq(printSets.id, id))
+    .where(and(eq(printSets.id, id), eq(printSets.status, 'running')))
     .returning({ id: printSets.id });
   return rows.length > 0;
 }
@@ -121,4 +122,23 @@ export async function markPrintSetDone(db: DbExecutor, id: string, files: PrintS
 /** Marks a print set failed with a message for the maker; it keeps no files. */
 export async function markPrintSetFailed(db: DbExecutor, id: string, error: string): Promise<void> {
   await db.update(printSets).set({ status: 'failed', files: [], error, finishedAt: sql`now()` }).where(eq(printSets.id, id));
+}
+
+/**
+ * Marks failed, with `error`, every print set still queued (counted from its creation) or running (counted from
+ * its last start) for more than `minutes`; returns their ids.
+ */
+export async function failPrintSetsOlderThan(db: DbExecutor, minutes: number, error: string): Promise<string[]> {
+  const cutoff = sql`now() - make_interval(mins => ${minutes})`;
+  const rows = await db
+    .update(printSets)
+    .set({ status: 'failed', files: [], error, finishedAt: sql`now()` })
+    .where(
+      or(
+        and(eq(printSets.status, 'queued'), lt(printSets.createdAt, cutoff)),
+        and(eq(printSets.status, 'running'), lt(printSets.startedAt, cutoff)),
+      ),
+    )
+    .returning({ id: printSets.id });
+  return rows.map((r) => r.id);
 }

@@ -126,7 +126,7 @@ describe('a print set whose build is deleted while it renders', () => {
       },
     };
     const summary = await runPrintSetJob({ db: ctx.db, files: racing }, { printSetId: row.id });
-    expect(summary).toEqual({ printSetId: row.id, skipped: 'deleted while rendering' });
+    expect(summary).toEqual({ printSetId: row.id, skipped: 'deleted or given up on while rendering' });
     expect(existsSync(path.join(filesDir, 'print-sets', row.id))).toBe(false);
   });
 });
