@@ -15,6 +15,7 @@ import { createAccessGuard } from './auth/guard';
 import { authRoutes } from './auth/router';
 import { sessionKey } from './auth/session';
 import type { SignInLimitOptions } from './auth/sign-in-limit';
+import type { SignUpLimitOptions } from './auth/sign-up-limit';
 import { buildRoutes } from './builds/router';
 import type { Env } from './env';
 import { AppError, errorHandler } from './errors';
@@ -37,6 +38,11 @@ export interface AppDeps {
   logger?: Logger;
   /** Overrides the sign-in limit from the environment (tests use a small one). */
   signInLimit?: SignInLimitOptions;
+  /**
+   * Overrides the sign-up limit from the environment; null turns it off (API tests about other things, which
+   * all sign up from one loopback address and would otherwise share one count across test files).
+   */
+  signUpLimit?: SignUpLimitOptions | null;
   /** Puts heavy work on the job queue; without it, routes that queue work answer 503 QUEUE_UNAVAILABLE. */
   jobs?: JobSender;
   /** Where generated files are kept; defaults to the local-disk store in FILES_DIR. */
@@ -47,10 +53,12 @@ export interface AppDeps {
 export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean): MountableRoute[] {
   const key = sessionKey(deps.sessionSecret);
   const signInLimit = deps.signInLimit ?? { max: deps.env.SIGNIN_RATE_LIMIT, windowMs: deps.env.SIGNIN_RATE_WINDOW_MINUTES * 60_000 };
+  const signUpLimit =
+    deps.signUpLimit === undefined ? { max: deps.env.SIGNUP_RATE_LIMIT, windowMs: deps.env.SIGNUP_RATE_WINDOW_MINUTES * 60_000 } : deps.signUpLimit;
   const files = deps.files ?? localDiskStore(deps.env.FILES_DIR);
   return [
     ...healthRoutes(deps.pool),
-    ...authRoutes({ db: deps.db, sessionKey: key, cookieSecure, signInLimit }),
+    ...authRoutes({ db: deps.db, sessionKey: key, cookieSecure, signInLimit, signUpLimit }),
     ...shopRoutes(deps.db),
     ...buildRoutes({ db: deps.db, files }),
     ...printSetRoutes({ db: deps.db, files, jobs: deps.jobs ?? null }),

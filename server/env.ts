@@ -25,6 +25,9 @@ const envSchema = z
     LOG_LEVEL: z.enum(LOG_LEVELS).default('info'),
     SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
     SIGNIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+    /** Sign-up attempts allowed per client address per window (server/auth/sign-up-limit.ts). */
+    SIGNUP_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+    SIGNUP_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(60),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {

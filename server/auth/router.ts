@@ -5,6 +5,7 @@ import { signInBody, signUpBody } from '../../db/validation';
 import { defineRoute, type MountableRoute } from '../http/define-route';
 import { loadProfile, signIn, signUp } from './service';
 import { signInLimiter, type SignInLimitOptions } from './sign-in-limit';
+import { signUpLimiter, type SignUpLimitOptions } from './sign-up-limit';
 import { SESSION_COOKIE, sessionCookieOptions, signSessionToken } from './session';
 
 export interface AuthRouteDeps {
@@ -12,6 +13,8 @@ export interface AuthRouteDeps {
   sessionKey: Uint8Array;
   cookieSecure: (req: Request) => boolean;
   signInLimit: SignInLimitOptions;
+  /** Null leaves sign-up unlimited (only for tests about something else that share one client address). */
+  signUpLimit: SignUpLimitOptions | null;
 }
 
 async function startSession(deps: AuthRouteDeps, req: Request, res: Response, userId: string): Promise<void> {
@@ -27,6 +30,7 @@ export function authRoutes(deps: AuthRouteDeps): MountableRoute[] {
       path: '/api/auth/signup',
       access: 'public',
       body: signUpBody,
+      before: deps.signUpLimit ? [signUpLimiter(db, deps.signUpLimit)] : [],
       handler: async ({ body, req, res }) => {
         const profile = await signUp(db, body);
         await startSession(deps, req, res, profile.user.id);

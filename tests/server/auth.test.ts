@@ -278,3 +278,63 @@ describe('sign-in rate limit', () => {
     }
   });
 });
+
+describe('sign-up rate limit', () => {
+  /** A random address in the IPv6 documentation range 2001:db8::/32 (RFC 3849), one /56 network per call. */
+  const networkPrefix = () => `2001:db8:${randomBytes(2).toString('hex')}:${randomBytes(1).toString('hex')}`;
+  const signUp = (app: TestContext['app'], from: string) =>
+    request(app).post('/api/auth/signup').set('X-Forwarded-For', from).send({ name: 'Rush Signer', email: uniqueEmail('rush'), password: 'long-enough-pw' });
+
+  it('answers 429 RATE_LIMITED once one address has used its sign-ups, counting failed attempts too, and not other addresses', async () => {
+    // TRUST_PROXY=true so X-Forwarded-For sets the client address (Express "trust proxy"), giving this test its own.
+    const limited = await makeTestApp({ sessionSecret: ctx.secret, env: { TRUST_PROXY: 'true' }, signUpLimit: { max: 3, windowMs: 60_000 } });
+    try {
+      const from = `${networkPrefix()}00::17`;
+      await signUp(limited.app, from).expect(201);
+      // A bad form still counts (an answer of "e-mail taken" would otherwise list registered addresses for free).
+      await request(limited.app).post('/api/auth/signup').set('X-Forwarded-For', from).send({ name: 'Rush', email: 'not-an-address', password: 'x' }).expect(400);
+      await signUp(limited.app, from).expect(201);
+      const blocked = await signUp(limited.app, from);
+      expect(blocked.status).toBe(429);
+      expect(blocked.body).toEqual({ error: { code: 'RATE_LIMITED', message: 'Too many sign-ups from your network address; wait up to 1 minutes and try again' } });
+      // IETF draft-ietf-httpapi-ratelimit-headers (draft 8): a RateLimit-Policy header names the quota.
+      expect(blocked.headers['ratelimit-policy']).toMatch(/q=3/);
+      expect(blocked.headers['set-cookie']).toBeUndefined();
+
+      await signUp(limited.app, `203.0.113.${1 + (randomBytes(1)[0] % 254)}`).expect(201);
+    } finally {
+      await limited.close();
+    }
+  });
+
+  it('counts an IPv6 /56 network as one client (a subscriber usually holds a whole prefix; express-rate-limit ipKeyGenerator)', async () => {
+    const limited = await makeTestApp({ sessionSecret: ctx.secret, env: { TRUST_PROXY: 'true' }, signUpLimit: { max: 1, windowMs: 60_000 } });
+    try {
+      const prefix = networkPrefix();
+      await signUp(limited.app, `${prefix}12::1`).expect(201);
+      expect((await signUp(limited.app, `${prefix}ab::99`)).status).toBe(429);
+    } finally {
+      await limited.close();
+    }
+  });
+
+  it('takes its size and window from SIGNUP_RATE_LIMIT and SIGNUP_RATE_WINDOW_MINUTES', async () => {
+    const limited = await makeTestApp({
+      sessionSecret: ctx.secret,
+      env: { TRUST_PROXY: 'true', SIGNUP_RATE_LIMIT: '2', SIGNUP_RATE_WINDOW_MINUTES: '45' },
+      signUpLimit: undefined,
+    });
+    try {
+      const from = `${networkPrefix()}00::5`;
+      await signUp(limited.app, from).expect(201);
+      await signUp(limited.app, from).expect(201);
+      const blocked = await signUp(limited.app, from);
+      expect(blocked.status).toBe(429);
+      expect(blocked.body.error.message).toMatch(/wait up to 45 minutes/);
+      // RateLimit-Policy "w" is the window in seconds: 45 × 60.
+      expect(blocked.headers['ratelimit-policy']).toMatch(/q=2; w=2700/);
+    } finally {
+      await limited.close();
+    }
+  });
+});

@@ -19,6 +19,8 @@ describe('parseEnv', () => {
       LOG_LEVEL: 'info',
       SIGNIN_RATE_LIMIT: 10,
       SIGNIN_RATE_WINDOW_MINUTES: 15,
+      SIGNUP_RATE_LIMIT: 10,
+      SIGNUP_RATE_WINDOW_MINUTES: 60,
     });
     expect(env.SESSION_SECRET).toBeUndefined();
   });
@@ -39,6 +41,13 @@ describe('parseEnv', () => {
     expect(message).toMatch(/\n {2}DATABASE_URL: must be a postgres:\/\/ URL/);
     expect(message).toMatch(/\n {2}SESSION_SECRET: must be at least 32 characters/);
     expect(message).toMatch(/\n {2}LOG_LEVEL: /);
+  });
+
+  it('names a sign-up limit that is not a whole number of at least 1, or a window that is not positive', () => {
+    expect(() => parseEnv({ SIGNUP_RATE_LIMIT: '0' })).toThrow(/\n {2}SIGNUP_RATE_LIMIT: /);
+    expect(() => parseEnv({ SIGNUP_RATE_LIMIT: '2.5' })).toThrow(/\n {2}SIGNUP_RATE_LIMIT: /);
+    expect(() => parseEnv({ SIGNUP_RATE_WINDOW_MINUTES: '-1' })).toThrow(/\n {2}SIGNUP_RATE_WINDOW_MINUTES: /);
+    expect(parseEnv({ SIGNUP_RATE_LIMIT: '25', SIGNUP_RATE_WINDOW_MINUTES: '30' })).toMatchObject({ SIGNUP_RATE_LIMIT: 25, SIGNUP_RATE_WINDOW_MINUTES: 30 });
   });
 
   it('requires SESSION_SECRET in production', () => {
