@@ -19,8 +19,10 @@
  *    in seam cost (length times visibility: creases, valleys, the underside and the back are cheaper; see
  *    seamVisibility), kept only when both charts still fit;
  * 4. every chart is checked with the full flattening and split again where it does not fit;
- * 5. faces that stick out of a chart's outline with two or three edges (teeth and notches of a saw-tooth seam)
- *    are handed to the chart they stick into where both still pass the full flattening (remove-border-teeth.ts).
+ * 5. every border that is one chain between two charts is laid along the cheapest edge path between its ends
+ *    (shortcut-chart-borders.ts), then faces that stick out of a chart's outline with two or three edges (teeth
+ *    and notches of a saw-tooth seam) are handed to the chart they stick into (remove-border-teeth.ts); each
+ *    change is kept only where both charts still pass the full flattening.
  *    On a mirror-symmetric model this step is left out, so the pieces stay exact mirror pairs.
  * Trial flattenings use few ARAP rounds, and a chart that cannot fit by the isoperimetric inequality is never
  * flattened at all. A mirror-symmetric model is cut on one side of its symmetry plane and the charts are
@@ -41,6 +43,7 @@ import { defragment, joinAcrossFlatPlane, mirrorFaces } from './mirror-charts';
 import { findSymmetryPlane } from './mirror-seams';
 import { splitUntilFit } from './split-charts';
 import { removeBorderTeeth } from './remove-border-teeth';
+import { shortcutChartBorders } from './shortcut-chart-borders';
 import { straightenChartBorders } from './straighten-chart-borders';
 
 export interface AutoSeamOptions {
@@ -172,7 +175,11 @@ export function autoSeams(mesh: TriMesh, twin: Int32Array, options: AutoSeamOpti
   charts.forEach((faces, c) => faces.forEach((f) => (chartOf[f] = c)));
   // Where the symmetry plane crosses a flat region (a box's side), the plane's seam is joined up again.
   if (mirror) joinAcrossFlatPlane(graph, chartOf, mirror.inHalf, finalStretch, budget);
-  else removeBorderTeeth(graph, chartOf, charts.map(() => 0), finalStretch, budget * TEETH_MARGIN);
+  else {
+    const stretches = charts.map(() => 0);
+    shortcutChartBorders(mesh, graph, chartOf, stretches, finalStretch, budget * TEETH_MARGIN);
+    removeBorderTeeth(graph, chartOf, stretches, finalStretch, budget * TEETH_MARGIN);
+  }
 
   const mask = new Uint8Array(3 * F);
   for (let h = 0; h < 3 * F; h++) {
