@@ -20,7 +20,7 @@ export function shopRoutes(db: Db): MountableRoute[] {
       path: '/api/shops/:shopId',
       access: { shopRole: 'viewer' },
       params: shopParams,
-      handler: async ({ shop }) => ({ status: 200, json: await describeShop(db, shop) }),
+      handler: async ({ user, shop }) => ({ status: 200, json: await describeShop(db, user, shop) }),
     }),
   ];
 }

@@ -77,19 +77,39 @@ describe('shops', () => {
     expect(roles[fx.shopId]).toBe('viewer');
   });
 
-  it('shows the shop with the caller role and its members (no password hashes)', async () => {
-    const res = await request(ctx.app).get(`/api/shops/${fx.shopId}`).set('Cookie', fx.people.editor.cookie);
+  it('shows the owner the shop, their role and every member with e-mail (no password hashes)', async () => {
+    const res = await request(ctx.app).get(`/api/shops/${fx.shopId}`).set('Cookie', fx.people.owner.cookie);
     expect(res.status).toBe(200);
-    expect(res.body.role).toBe('editor');
+    expect(res.body.role).toBe('owner');
     const byEmail = Object.fromEntries(res.body.members.map((m: { email: string; role: string }) => [m.email, m.role]));
     expect(byEmail).toEqual({ [fx.people.owner.email]: 'owner', [fx.people.editor.email]: 'editor', [fx.people.viewer.email]: 'viewer' });
+    for (const m of res.body.members) expect(Object.keys(m).sort()).toEqual(['email', 'name', 'role', 'userId']);
     expect(JSON.stringify(res.body)).not.toMatch(/argon2|passwordHash/);
   });
 
-  it('gives a site admin reading a shop the role null', async () => {
+  it('shows editors and viewers the members by name and role only, never an e-mail address (data minimisation, GDPR Art. 5(1)(c))', async () => {
+    for (const persona of ['editor', 'viewer'] as const) {
+      const res = await request(ctx.app).get(`/api/shops/${fx.shopId}`).set('Cookie', fx.people[persona].cookie);
+      expect(res.status, persona).toBe(200);
+      expect(res.body.role).toBe(persona);
+      const byId = Object.fromEntries(res.body.members.map((m: { userId: string; name: string; role: string }) => [m.userId, [m.name, m.role]]));
+      expect(byId).toEqual({
+        [fx.people.owner.id]: ['Test owner', 'owner'],
+        [fx.people.editor.id]: ['Test editor', 'editor'],
+        [fx.people.viewer.id]: ['Test viewer', 'viewer'],
+      });
+      for (const m of res.body.members) expect(Object.keys(m).sort(), persona).toEqual(['name', 'role', 'userId']);
+      const text = JSON.stringify(res.body);
+      for (const p of [fx.people.owner, fx.people.editor, fx.people.viewer]) expect(text, persona).not.toContain(p.email);
+      expect(text).not.toContain('@');
+    }
+  });
+
+  it('gives a site admin reading a shop the role null and the e-mails (they see every address in /api/admin/users)', async () => {
     const res = await request(ctx.app).get(`/api/shops/${fx.shopId}`).set('Cookie', fx.people.admin.cookie);
     expect(res.status).toBe(200);
     expect(res.body.role).toBeNull();
+    expect(res.body.members.map((m: { email: string }) => m.email).sort()).toEqual([fx.people.owner.email, fx.people.editor.email, fx.people.viewer.email].sort());
   });
 });
 
