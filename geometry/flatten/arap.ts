@@ -52,7 +52,7 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
     }
   }
 
-  const local = isometricTriangles(positions, triangles);
+  const edge = isometricEdges(positions, triangles);
   // Global step: L·u = Σ ½cot_h·R_f(x_a − x_b) (per half-edge a→b, into a and minus into b), L the
   // cotangent Laplacian with vertex `held` removed to fix the translation.
   const held = triangles[0];
@@ -78,7 +78,7 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
   const solV = new Float64Array(nv - 1);
   let previousEnergy = Infinity;
   for (let round = 0; round < maxRounds; round++) {
-    const energy = fitRotations(uv, triangles, cot, local, rot);
+    const energy = fitRotations(uv, triangles, cot, edge, rot);
     if (energy === 0) break;
     if (round > 0 && Math.abs(previousEnergy - energy) <= tolerance * previousEnergy) break;
     previousEnergy = energy;
@@ -93,8 +93,8 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
       for (let i = 0; i < 3; i++) {
         const j = i === 2 ? 0 : i + 1;
         const h = 3 * f + i;
-        const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
-        const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+        const dx = edge[2 * h];
+        const dy = edge[2 * h + 1];
         const w = 0.5 * cot[h];
         const gx = w * (c * dx - s * dy);
         const gy = w * (s * dx + c * dy);
@@ -118,8 +118,7 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
         }
       }
     }
-    factor.solve(rhsU, solU);
-    factor.solve(rhsV, solV);
+    factor.solvePair(rhsU, rhsV, solU, solV);
     for (let v = 0; v < nv; v++) {
       const k = index[v];
       target[2 * v] = k < 0 ? hu : solU[k];
@@ -175,10 +174,11 @@ function invertedCount(uv: Float64Array, triangles: Uint32Array): number {
 }
 
 /**
- * Each triangle laid isometrically in its own plane: corner 0 at the origin, corner 1 on +x, corner 2
- * above the x axis (6 numbers per triangle).
+ * Each triangle laid isometrically in its own plane (corner 0 at the origin, corner 1 on +x, corner 2
+ * above the x axis), returned as its half-edge vectors: for h = 3f+i from corner i to corner (i+1) mod 3,
+ * (x_i − x_(i+1), y_i − y_(i+1)) at 2h, 2h+1 — computed once, as every round reads them.
  */
-function isometricTriangles(positions: Float64Array, triangles: Uint32Array): Float64Array {
+function isometricEdges(positions: Float64Array, triangles: Uint32Array): Float64Array {
   const nf = triangles.length / 3;
   const out = new Float64Array(6 * nf);
   for (let f = 0; f < nf; f++) {
@@ -195,9 +195,13 @@ function isometricTriangles(positions: Float64Array, triangles: Uint32Array): Fl
     const cx = ay * bz - az * by;
     const cy = az * bx - ax * bz;
     const cz = ax * by - ay * bx;
-    out[6 * f + 2] = la;
-    out[6 * f + 4] = (ax * bx + ay * by + az * bz) / la;
-    out[6 * f + 5] = Math.sqrt(cx * cx + cy * cy + cz * cz) / la;
+    const x2 = (ax * bx + ay * by + az * bz) / la;
+    const y2 = Math.sqrt(cx * cx + cy * cy + cz * cz) / la;
+    out[6 * f] = -la;
+    out[6 * f + 2] = la - x2;
+    out[6 * f + 3] = -y2;
+    out[6 * f + 4] = x2;
+    out[6 * f + 5] = y2;
   }
   return out;
 }
@@ -210,7 +214,7 @@ function fitRotations(
   uv: Float64Array,
   triangles: Uint32Array,
   cot: Float64Array,
-  local: Float64Array,
+  edge: Float64Array,
   rot: Float64Array,
 ): number {
   const nf = triangles.length / 3;
@@ -221,14 +225,14 @@ function fitRotations(
     let s10 = 0;
     let s11 = 0;
     for (let i = 0; i < 3; i++) {
-      const j = (i + 1) % 3;
+      const j = i === 2 ? 0 : i + 1;
       const w = cot[3 * f + i];
       const a = triangles[3 * f + i];
       const b = triangles[3 * f + j];
       const du = uv[2 * a] - uv[2 * b];
       const dv = uv[2 * a + 1] - uv[2 * b + 1];
-      const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
-      const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+      const dx = edge[6 * f + 2 * i];
+      const dy = edge[6 * f + 2 * i + 1];
       s00 += w * du * dx;
       s01 += w * du * dy;
       s10 += w * dv * dx;
@@ -240,11 +244,11 @@ function fitRotations(
     rot[2 * f] = c;
     rot[2 * f + 1] = s;
     for (let i = 0; i < 3; i++) {
-      const j = (i + 1) % 3;
+      const j = i === 2 ? 0 : i + 1;
       const a = triangles[3 * f + i];
       const b = triangles[3 * f + j];
-      const dx = local[6 * f + 2 * i] - local[6 * f + 2 * j];
-      const dy = local[6 * f + 2 * i + 1] - local[6 * f + 2 * j + 1];
+      const dx = edge[6 * f + 2 * i];
+      const dy = edge[6 * f + 2 * i + 1];
       const ex = uv[2 * a] - uv[2 * b] - (c * dx - s * dy);
       const ey = uv[2 * a + 1] - uv[2 * b + 1] - (s * dx + c * dy);
       energy += 0.5 * cot[3 * f + i] * (ex * ex + ey * ey);
