@@ -14,8 +14,8 @@ export interface ArapOptions {
  * Returns an as-rigid-as-possible flattening (Float64Array 2V, mm) starting from `initialUV` (2V, e.g. a
  * rescaled LSCM result). Local/global ARAP parameterization (Liu, Zhang, Xu, Gotsman & Gortler 2008,
  * "A Local/Global Approach to Mesh Parameterization", SGP): each round fits every triangle the rotation
- * closest to its current 2D map (closed form for 2×2 — the angle atan2(c−b, a+d) of the weighted
- * cross-covariance), then solves the cotangent Laplacian system for all vertices with the factor built
+ * closest to its current 2D map (closed form for 2×2 — the unit vector along (a+d, c−b) of the weighted
+ * cross-covariance [[a, b], [c, d]] gives its cosine and sine, no trigonometry needed), then solves the cotangent Laplacian system for all vertices with the factor built
  * once before the first round (one vertex held to fix the translation). Rounds stop when the ARAP energy
  * changes by less than `tolerance` relative, or after `iterations`. Flip guard: a round that would invert
  * more triangles than the current iterate is shortened by halving the step toward it (up to 12 halvings);
@@ -238,9 +238,12 @@ function fitRotations(
       s10 += w * dv * dx;
       s11 += w * dv * dy;
     }
-    const angle = Math.atan2(s10 - s01, s00 + s11);
-    const c = Math.cos(angle);
-    const s = Math.sin(angle);
+    // (cos, sin) of atan2(ry, rx) by normalising (rx, ry); the identity when the covariance vanishes.
+    const ry = s10 - s01;
+    const rx = s00 + s11;
+    const r = Math.sqrt(rx * rx + ry * ry);
+    const c = r > 0 ? rx / r : 1;
+    const s = r > 0 ? ry / r : 0;
     rot[2 * f] = c;
     rot[2 * f + 1] = s;
     for (let i = 0; i < 3; i++) {
