@@ -65,6 +65,16 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
     throw new GeometryError('FLATTEN_FAILED', `ARAP system could not be factored: ${(e as Error).message}`);
   }
 
+  // Per half-edge a→b: the unknowns of a and b (−1 for the held vertex) and ½cot, read every round.
+  const fromIndex = new Int32Array(3 * nf);
+  const toIndex = new Int32Array(3 * nf);
+  const halfCot = new Float64Array(3 * nf);
+  for (let h = 0; h < 3 * nf; h++) {
+    fromIndex[h] = index[triangles[h]];
+    toIndex[h] = index[triangles[h % 3 === 2 ? h - 2 : h + 1]];
+    halfCot[h] = 0.5 * cot[h];
+  }
+
   // Two coordinate buffers swapped each accepted round, and one for the global step's target, so a round
   // allocates nothing (trial flattenings of small charts run thousands of these).
   let uv = Float64Array.from(initialUV);
@@ -90,16 +100,14 @@ export function arapFlattenPrepared(piece: PreparedPiece, initialUV: Float64Arra
     for (let f = 0; f < nf; f++) {
       const c = rot[2 * f];
       const s = rot[2 * f + 1];
-      for (let i = 0; i < 3; i++) {
-        const j = i === 2 ? 0 : i + 1;
-        const h = 3 * f + i;
+      for (let h = 3 * f; h < 3 * f + 3; h++) {
         const dx = edge[2 * h];
         const dy = edge[2 * h + 1];
-        const w = 0.5 * cot[h];
+        const w = halfCot[h];
         const gx = w * (c * dx - s * dy);
         const gy = w * (s * dx + c * dy);
-        const ia = index[triangles[h]];
-        const ib = index[triangles[3 * f + j]];
+        const ia = fromIndex[h];
+        const ib = toIndex[h];
         if (ia >= 0) {
           rhsU[ia] += gx;
           rhsV[ia] += gy;
