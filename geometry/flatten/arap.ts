@@ -228,24 +228,43 @@ function fitRotations(
   const nf = triangles.length / 3;
   let energy = 0;
   for (let f = 0; f < nf; f++) {
+    // The three half-edges' 2D differences, read once for both the fit and the energy.
+    const a = 2 * triangles[3 * f];
+    const b = 2 * triangles[3 * f + 1];
+    const c2 = 2 * triangles[3 * f + 2];
+    const du0 = uv[a] - uv[b];
+    const dv0 = uv[a + 1] - uv[b + 1];
+    const du1 = uv[b] - uv[c2];
+    const dv1 = uv[b + 1] - uv[c2 + 1];
+    const du2 = uv[c2] - uv[a];
+    const dv2 = uv[c2 + 1] - uv[a + 1];
+    const w0 = cot[3 * f];
+    const w1 = cot[3 * f + 1];
+    const w2 = cot[3 * f + 2];
+    const e = 6 * f;
+    const dx0 = edge[e];
+    const dy0 = edge[e + 1];
+    const dx1 = edge[e + 2];
+    const dy1 = edge[e + 3];
+    const dx2 = edge[e + 4];
+    const dy2 = edge[e + 5];
+    // Sums in half-edge order from zero, as a loop over the three would.
     let s00 = 0;
     let s01 = 0;
     let s10 = 0;
     let s11 = 0;
-    for (let i = 0; i < 3; i++) {
-      const j = i === 2 ? 0 : i + 1;
-      const w = cot[3 * f + i];
-      const a = triangles[3 * f + i];
-      const b = triangles[3 * f + j];
-      const du = uv[2 * a] - uv[2 * b];
-      const dv = uv[2 * a + 1] - uv[2 * b + 1];
-      const dx = edge[6 * f + 2 * i];
-      const dy = edge[6 * f + 2 * i + 1];
-      s00 += w * du * dx;
-      s01 += w * du * dy;
-      s10 += w * dv * dx;
-      s11 += w * dv * dy;
-    }
+    s00 += w0 * du0 * dx0;
+    s01 += w0 * du0 * dy0;
+    s10 += w0 * dv0 * dx0;
+    s11 += w0 * dv0 * dy0;
+    s00 += w1 * du1 * dx1;
+    s01 += w1 * du1 * dy1;
+    s10 += w1 * dv1 * dx1;
+    s11 += w1 * dv1 * dy1;
+    s00 += w2 * du2 * dx2;
+    s01 += w2 * du2 * dy2;
+    s10 += w2 * dv2 * dx2;
+    s11 += w2 * dv2 * dy2;
     // (cos, sin) of atan2(ry, rx) by normalising (rx, ry); the identity when the covariance vanishes.
     const ry = s10 - s01;
     const rx = s00 + s11;
@@ -254,16 +273,15 @@ function fitRotations(
     const s = r > 0 ? ry / r : 0;
     rot[2 * f] = c;
     rot[2 * f + 1] = s;
-    for (let i = 0; i < 3; i++) {
-      const j = i === 2 ? 0 : i + 1;
-      const a = triangles[3 * f + i];
-      const b = triangles[3 * f + j];
-      const dx = edge[6 * f + 2 * i];
-      const dy = edge[6 * f + 2 * i + 1];
-      const ex = uv[2 * a] - uv[2 * b] - (c * dx - s * dy);
-      const ey = uv[2 * a + 1] - uv[2 * b + 1] - (s * dx + c * dy);
-      energy += 0.5 * cot[3 * f + i] * (ex * ex + ey * ey);
-    }
+    const ex0 = du0 - (c * dx0 - s * dy0);
+    const ey0 = dv0 - (s * dx0 + c * dy0);
+    energy += 0.5 * w0 * (ex0 * ex0 + ey0 * ey0);
+    const ex1 = du1 - (c * dx1 - s * dy1);
+    const ey1 = dv1 - (s * dx1 + c * dy1);
+    energy += 0.5 * w1 * (ex1 * ex1 + ey1 * ey1);
+    const ex2 = du2 - (c * dx2 - s * dy2);
+    const ey2 = dv2 - (s * dx2 + c * dy2);
+    energy += 0.5 * w2 * (ex2 * ex2 + ey2 * ey2);
   }
   return energy;
 }
