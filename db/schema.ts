@@ -31,6 +31,8 @@ export const users = pgTable(
     name: text('name').notNull(),
     passwordHash: text('password_hash').notNull(),
     isAdmin: boolean('is_admin').notNull().default(false),
+    // Copied into every session token; raising it (on sign-out) makes every earlier token of this person invalid.
+    sessionGeneration: integer('session_generation').notNull().default(0),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   // E-mail addresses are compared case-insensitively by people; storing them lower-case keeps the unique

@@ -36,12 +36,16 @@ async function readSession(deps: GuardDeps, req: Request, res: Response): Promis
     clear();
     throw unauthenticated(check.reason === 'expired' ? 'Your session has expired; sign in again' : 'Your session is not valid; sign in again');
   }
-  const user = await userForSession(deps.db, check.userId);
-  if (!user) {
+  const found = await userForSession(deps.db, check);
+  if (!found.ok) {
     clear();
-    throw unauthenticated('The account of this session no longer exists; sign in again');
+    throw unauthenticated(
+      found.reason === 'account-gone'
+        ? 'The account of this session no longer exists; sign in again'
+        : 'This session was ended by a sign-out; sign in again',
+    );
   }
-  return user;
+  return found.user;
 }
 
 function forbiddenMessage(rule: AccessRule, shopRole: Role | null): string {

@@ -1,27 +1,42 @@
 /** Drizzle queries for people, their shops and memberships as needed by sign-in and access checks. */
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { DbExecutor } from '../../db/client';
 import { memberships, shops, users } from '../../db/schema';
 import type { Role } from '../../db/validation';
 
 const publicUserColumns = { id: users.id, email: users.email, name: users.name, isAdmin: users.isAdmin };
 
-/** Returns the user with `email` (already lower-case) including the password hash, or null. */
+/** Returns the user with `email` (already lower-case) including the password hash and session generation, or null. */
 export async function selectUserForSignIn(db: DbExecutor, email: string) {
-  const rows = await db.select({ ...publicUserColumns, passwordHash: users.passwordHash }).from(users).where(eq(users.email, email));
+  const rows = await db
+    .select({ ...publicUserColumns, passwordHash: users.passwordHash, sessionGeneration: users.sessionGeneration })
+    .from(users)
+    .where(eq(users.email, email));
   return rows[0] ?? null;
 }
 
-/** Returns the user's public fields, or null when there is no such user. */
-export async function selectUserById(db: DbExecutor, id: string) {
-  const rows = await db.select(publicUserColumns).from(users).where(eq(users.id, id));
+/** Returns the user's public fields and current session generation (one primary-key lookup), or null when there is no such user. */
+export async function selectUserForSession(db: DbExecutor, id: string) {
+  const rows = await db.select({ ...publicUserColumns, sessionGeneration: users.sessionGeneration }).from(users).where(eq(users.id, id));
   return rows[0] ?? null;
 }
 
-/** Inserts a user and returns its public fields; null when the e-mail is already taken. */
+/** Inserts a user and returns its public fields and session generation; null when the e-mail is already taken. */
 export async function insertUser(db: DbExecutor, user: { email: string; name: string; passwordHash: string; isAdmin?: boolean }) {
-  const rows = await db.insert(users).values(user).onConflictDoNothing({ target: users.email }).returning(publicUserColumns);
+  const rows = await db
+    .insert(users)
+    .values(user)
+    .onConflictDoNothing({ target: users.email })
+    .returning({ ...publicUserColumns, sessionGeneration: users.sessionGeneration });
   return rows[0] ?? null;
+}
+
+/** Raises the user's session generation by one in a single statement (so concurrent sign-outs both count). */
+export async function incrementSessionGeneration(db: DbExecutor, id: string): Promise<void> {
+  await db
+    .update(users)
+    .set({ sessionGeneration: sql`${users.sessionGeneration} + 1` })
+    .where(eq(users.id, id));
 }
 
 /** Inserts a shop and returns it. */

@@ -3,10 +3,10 @@ import type { Request, Response } from 'express';
 import type { Db } from '../../db/client';
 import { signInBody, signUpBody } from '../../db/validation';
 import { defineRoute, type MountableRoute } from '../http/define-route';
-import { loadProfile, signIn, signUp } from './service';
+import { loadProfile, signIn, signOutEverywhere, signUp } from './service';
 import { signInLimiter, type SignInLimitOptions } from './sign-in-limit';
 import { signUpLimiter, type SignUpLimitOptions } from './sign-up-limit';
-import { SESSION_COOKIE, sessionCookieOptions, signSessionToken } from './session';
+import { SESSION_COOKIE, sessionCookieOptions, signSessionToken, type SessionClaims } from './session';
 
 export interface AuthRouteDeps {
   db: Db;
@@ -17,8 +17,8 @@ export interface AuthRouteDeps {
   signUpLimit: SignUpLimitOptions | null;
 }
 
-async function startSession(deps: AuthRouteDeps, req: Request, res: Response, userId: string): Promise<void> {
-  res.cookie(SESSION_COOKIE, await signSessionToken(deps.sessionKey, userId), sessionCookieOptions(deps.cookieSecure(req)));
+async function startSession(deps: AuthRouteDeps, req: Request, res: Response, claims: SessionClaims): Promise<void> {
+  res.cookie(SESSION_COOKIE, await signSessionToken(deps.sessionKey, claims), sessionCookieOptions(deps.cookieSecure(req)));
 }
 
 /** Returns the sign-up, sign-in, sign-out and profile routes. */
@@ -32,8 +32,8 @@ export function authRoutes(deps: AuthRouteDeps): MountableRoute[] {
       body: signUpBody,
       before: deps.signUpLimit ? [signUpLimiter(db, deps.signUpLimit)] : [],
       handler: async ({ body, req, res }) => {
-        const profile = await signUp(db, body);
-        await startSession(deps, req, res, profile.user.id);
+        const { profile, session } = await signUp(db, body);
+        await startSession(deps, req, res, session);
         return { status: 201, json: profile };
       },
     }),
@@ -44,8 +44,8 @@ export function authRoutes(deps: AuthRouteDeps): MountableRoute[] {
       body: signInBody,
       before: [signInLimiter(db, deps.signInLimit)],
       handler: async ({ body, req, res }) => {
-        const profile = await signIn(db, body);
-        await startSession(deps, req, res, profile.user.id);
+        const { profile, session } = await signIn(db, body);
+        await startSession(deps, req, res, session);
         return { status: 200, json: profile };
       },
     }),
@@ -53,7 +53,9 @@ export function authRoutes(deps: AuthRouteDeps): MountableRoute[] {
       method: 'POST',
       path: '/api/auth/signout',
       access: 'signedIn',
-      handler: async ({ req, res }) => {
+      handler: async ({ user, req, res }) => {
+        // Ends this person's sessions everywhere, so a copied cookie stops working too, not just this browser's.
+        await signOutEverywhere(db, user.id);
         const { maxAge: _unused, ...attributes } = sessionCookieOptions(deps.cookieSecure(req));
         res.clearCookie(SESSION_COOKIE, attributes);
         return { status: 204 };

@@ -5,7 +5,16 @@ import { recordAudit } from '../audit/service';
 import { AppError } from '../errors';
 import type { SessionUser } from '../http/define-route';
 import { hashPassword, verifyAgainstDecoy, verifyPassword } from './passwords';
-import { insertMembership, insertShop, insertUser, selectMembershipsOfUser, selectUserById, selectUserForSignIn } from './queries';
+import {
+  incrementSessionGeneration,
+  insertMembership,
+  insertShop,
+  insertUser,
+  selectMembershipsOfUser,
+  selectUserForSession,
+  selectUserForSignIn,
+} from './queries';
+import type { SessionClaims } from './session';
 
 export interface MembershipView {
   shopId: string;
@@ -17,6 +26,15 @@ export interface Profile {
   user: SessionUser;
   memberships: MembershipView[];
 }
+
+/** A successful sign-up or sign-in: the profile to answer with and the claims for the new session token. */
+export interface SignedIn {
+  profile: Profile;
+  session: SessionClaims;
+}
+
+/** Why a well-signed token no longer opens a session: the account is gone, or the person signed out since. */
+export type SessionLookup = { ok: true; user: SessionUser } | { ok: false; reason: 'account-gone' | 'signed-out' };
 
 /** The one answer for a failed sign-in, whatever the cause (OWASP Authentication Cheat Sheet). */
 export function badCredentials(): AppError {
@@ -30,31 +48,44 @@ export function firstShopName(personName: string): string {
 
 /**
  * Creates the person, their first shop (they own it) and an audit entry in one transaction, and returns the
- * profile. Throws 409 EMAIL_TAKEN (with fields.email) when the address already has an account.
+ * profile and session claims. Throws 409 EMAIL_TAKEN (with fields.email) when the address already has an account.
  */
-export async function signUp(db: Db, input: SignUpBody): Promise<Profile> {
+export async function signUp(db: Db, input: SignUpBody): Promise<SignedIn> {
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (tx) => {
-    const user = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
-    if (!user) {
+    const inserted = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
+    if (!inserted) {
       throw new AppError('EMAIL_TAKEN', 409, 'An account with this e-mail already exists', {
         email: 'An account with this e-mail already exists; sign in instead',
       });
     }
+    const { sessionGeneration, ...user } = inserted;
     const shop = await insertShop(tx, firstShopName(input.name));
     await insertMembership(tx, user.id, shop.id, 'owner');
     await recordAudit(tx, { shopId: shop.id, userId: user.id, action: 'user.signup', target: `user:${user.id}`, detail: { email: user.email, shopName: shop.name } });
-    return { user, memberships: [{ shopId: shop.id, shopName: shop.name, role: 'owner' as const }] };
+    return {
+      profile: { user, memberships: [{ shopId: shop.id, shopName: shop.name, role: 'owner' as const }] },
+      session: { userId: user.id, generation: sessionGeneration },
+    };
   });
 }
 
-/** Returns the profile when the e-mail and password match; otherwise throws 401 BAD_CREDENTIALS. */
-export async function signIn(db: Db, input: SignInBody): Promise<Profile> {
+/** Returns the profile and session claims when the e-mail and password match; otherwise throws 401 BAD_CREDENTIALS. */
+export async function signIn(db: Db, input: SignInBody): Promise<SignedIn> {
   const found = await selectUserForSignIn(db, input.email);
   const ok = found ? await verifyPassword(found.passwordHash, input.password) : await verifyAgainstDecoy(input.password);
   if (!found || !ok) throw badCredentials();
-  const { passwordHash: _hash, ...user } = found;
-  return { user, memberships: await selectMembershipsOfUser(db, user.id) };
+  const { passwordHash: _hash, sessionGeneration, ...user } = found;
+  return { profile: { user, memberships: await selectMembershipsOfUser(db, user.id) }, session: { userId: user.id, generation: sessionGeneration } };
+}
+
+/**
+ * Ends every session of the person, on every device: raises their session generation, so each token issued
+ * before (this cookie and any copy of it) fails the guard's check. Deliberately all sessions rather than one:
+ * the server keeps no list of sessions, and for a small shop's tool "sign out everywhere" is the safe choice.
+ */
+export function signOutEverywhere(db: Db, userId: string): Promise<void> {
+  return incrementSessionGeneration(db, userId);
 }
 
 /** Returns the profile of a signed-in person (who they are and the shops they belong to). */
@@ -62,7 +93,14 @@ export async function loadProfile(db: Db, user: SessionUser): Promise<Profile> {
   return { user, memberships: await selectMembershipsOfUser(db, user.id) };
 }
 
-/** Returns the user for a session's user id, or null when the account no longer exists. */
-export function userForSession(db: Db, userId: string): Promise<SessionUser | null> {
-  return selectUserById(db, userId);
+/**
+ * Returns the user for a verified token's claims, or why the session is over: the account no longer exists, or
+ * the token's generation is not the person's current one (they signed out since it was issued).
+ */
+export async function userForSession(db: Db, claims: SessionClaims): Promise<SessionLookup> {
+  const found = await selectUserForSession(db, claims.userId);
+  if (!found) return { ok: false, reason: 'account-gone' };
+  const { sessionGeneration, ...user } = found;
+  if (sessionGeneration !== claims.generation) return { ok: false, reason: 'signed-out' };
+  return { ok: true, user };
 }

@@ -25,7 +25,7 @@ import type { FileStore } from '../../server/storage/file-store';
 import { localDiskStore } from '../../server/storage/local-disk-store';
 import { printSets } from '../../db/schema';
 import { piece, rectangle } from '../fixtures/pattern-docs/shape-docs';
-import { insertBuild, makeShopFixture, makeTestApp, PERSONAS, uniqueEmail, FIXTURE_PASSWORD, TEST_DATABASE_URL, type Persona, type ShopFixture, type TestContext } from './helpers';
+import { currentSessionCookie, insertBuild, makeShopFixture, makeTestApp, PERSONAS, uniqueEmail, FIXTURE_PASSWORD, TEST_DATABASE_URL, type Persona, type ShopFixture, type TestContext } from './helpers';
 
 type Outcome = '2xx' | '401' | '403';
 
@@ -124,6 +124,11 @@ describe('every route × every persona', () => {
         const res = call.body ? await req.send(call.body) : await req;
         expect(outcomeOf(res.status), JSON.stringify(res.body)).toBe(want);
         if (want !== '2xx') expect(res.body.error.code).toBe(want === '401' ? 'UNAUTHENTICATED' : 'FORBIDDEN');
+        // Sign-out ends every session of the persona (server/auth/session.ts), so later calls need a new cookie.
+        if (route.path === '/api/auth/signout' && persona !== 'anonymous') {
+          await request(ctx.app).get('/api/me').set('Cookie', fx.people[persona].cookie).expect(401);
+          fx.people[persona].cookie = await currentSessionCookie(ctx, fx.people[persona].id);
+        }
       });
     }
   }

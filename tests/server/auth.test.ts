@@ -171,7 +171,7 @@ describe('session tokens', () => {
   it('rejects an expired token with 401 (RFC 7519 §4.1.4: "exp" must be after the current time) and clears the cookie', async () => {
     const person = await insertPerson(ctx.db, 'expired');
     const issued = Math.floor(Date.now() / 1000) - SESSION_TTL_SECONDS - 60;
-    const token = await signSessionToken(ctx.key, person.id, issued);
+    const token = await signSessionToken(ctx.key, { userId: person.id, generation: 0 }, issued);
     const res = await request(ctx.app).get('/api/me').set('Cookie', `${SESSION_COOKIE}=${token}`);
     expect(res.status).toBe(401);
     expect(res.body.error.code).toBe('UNAUTHENTICATED');
@@ -181,7 +181,7 @@ describe('session tokens', () => {
 
   it('accepts the same token shape while it is still valid', async () => {
     const person = await insertPerson(ctx.db, 'fresh');
-    const token = await signSessionToken(ctx.key, person.id, Math.floor(Date.now() / 1000) - SESSION_TTL_SECONDS + 120);
+    const token = await signSessionToken(ctx.key, { userId: person.id, generation: 0 }, Math.floor(Date.now() / 1000) - SESSION_TTL_SECONDS + 120);
     const res = await request(ctx.app).get('/api/me').set('Cookie', `${SESSION_COOKIE}=${token}`);
     expect(res.status).toBe(200);
   });
@@ -189,7 +189,7 @@ describe('session tokens', () => {
   it('rejects a tampered token: a changed payload no longer matches the HS256 signature (RFC 7515 §5.2)', async () => {
     const victim = await insertPerson(ctx.db, 'victim');
     const attacker = await insertPerson(ctx.db, 'attacker');
-    const [header, , signature] = (await signSessionToken(ctx.key, attacker.id)).split('.');
+    const [header, , signature] = (await signSessionToken(ctx.key, { userId: attacker.id, generation: 0 })).split('.');
     const forgedPayload = Buffer.from(JSON.stringify({ sub: victim.id, iss: 'sheetsmith', exp: Math.floor(Date.now() / 1000) + 3600 })).toString('base64url');
     const res = await request(ctx.app).get('/api/me').set('Cookie', `${SESSION_COOKIE}=${header}.${forgedPayload}.${signature}`);
     expect(res.status).toBe(401);
@@ -198,10 +198,10 @@ describe('session tokens', () => {
 
   it('rejects a token with a flipped signature character, one signed with another key, and an unsigned ("alg": "none") token', async () => {
     const person = await insertPerson(ctx.db, 'forged');
-    const good = await signSessionToken(ctx.key, person.id);
+    const good = await signSessionToken(ctx.key, { userId: person.id, generation: 0 });
     const last = good.at(-2) === 'A' ? 'B' : 'A';
     const flipped = `${good.slice(0, -2)}${last}${good.at(-1)}`;
-    const otherKey = await signSessionToken(new TextEncoder().encode('a-different-secret-of-32-characters!!'), person.id);
+    const otherKey = await signSessionToken(new TextEncoder().encode('a-different-secret-of-32-characters!!'), { userId: person.id, generation: 0 });
     const now = Math.floor(Date.now() / 1000);
     const unsigned = [
       Buffer.from(JSON.stringify({ alg: 'none' })).toString('base64url'),
@@ -226,6 +226,93 @@ describe('session tokens', () => {
   it('lets a public route through even with a broken cookie', async () => {
     const res = await request(ctx.app).get('/api/health').set('Cookie', `${SESSION_COOKIE}=garbage`);
     expect(res.status).toBe(200);
+  });
+});
+
+describe('sign-out ends the session on the server', () => {
+  // OWASP ASVS 4.0 V3.3.1 and the OWASP Session Management Cheat Sheet ("Logout"): logging out must invalidate
+  // the session token on the server, not only remove it from the browser (requirement numbers from memory).
+  const cookieOf = (headers: Record<string, unknown>) => sessionCookieLine(headers).split(';')[0];
+  const generationOf = async (id: string) => (await ctx.db.select({ g: users.sessionGeneration }).from(users).where(eq(users.id, id)))[0].g;
+
+  it('signs out every session of the person: two sign-ins, sign out with one, both cookies then get 401 and a cleared cookie', async () => {
+    const person = await insertPerson(ctx.db, 'two-devices');
+    const first = await request(ctx.app).post('/api/auth/signin').send({ email: person.email, password: FIXTURE_PASSWORD }).expect(200);
+    const second = await request(ctx.app).post('/api/auth/signin').send({ email: person.email, password: FIXTURE_PASSWORD }).expect(200);
+    const [laptop, phone] = [cookieOf(first.headers), cookieOf(second.headers)];
+    await request(ctx.app).get('/api/me').set('Cookie', laptop).expect(200);
+    await request(ctx.app).get('/api/me').set('Cookie', phone).expect(200);
+
+    await request(ctx.app).post('/api/auth/signout').set('Cookie', laptop).expect(204);
+    expect(await generationOf(person.id)).toBe(1);
+
+    for (const cookie of [laptop, phone]) {
+      const res = await request(ctx.app).get('/api/me').set('Cookie', cookie);
+      expect(res.status).toBe(401);
+      expect(res.body.error).toEqual({ code: 'UNAUTHENTICATED', message: 'This session was ended by a sign-out; sign in again' });
+      // RFC 6265 §3.1: a cookie is removed by setting it again with an expiry in the past.
+      expect(sessionCookieLine(res.headers)).toMatch(/Expires=Thu, 01 Jan 1970/);
+    }
+    // Signing out again with the stale cookie is refused and does not raise the generation a second time.
+    expect((await request(ctx.app).post('/api/auth/signout').set('Cookie', phone)).status).toBe(401);
+    expect(await generationOf(person.id)).toBe(1);
+  });
+
+  it('lets the person sign in again afterwards, and the new cookie works', async () => {
+    const person = await insertPerson(ctx.db, 'again');
+    const before = cookieOf((await request(ctx.app).post('/api/auth/signin').send({ email: person.email, password: FIXTURE_PASSWORD }).expect(200)).headers);
+    await request(ctx.app).post('/api/auth/signout').set('Cookie', before).expect(204);
+    const after = cookieOf((await request(ctx.app).post('/api/auth/signin').send({ email: person.email, password: FIXTURE_PASSWORD }).expect(200)).headers);
+    const me = await request(ctx.app).get('/api/me').set('Cookie', after);
+    expect(me.status).toBe(200);
+    expect(me.body.user.id).toBe(person.id);
+    await request(ctx.app).get('/api/me').set('Cookie', before).expect(401);
+  });
+
+  it('leaves other people signed in', async () => {
+    const leaving = await insertPerson(ctx.db, 'leaving');
+    const staying = await insertPerson(ctx.db, 'staying');
+    await request(ctx.app).post('/api/auth/signout').set('Cookie', await sessionCookie(ctx.key, leaving.id)).expect(204);
+    await request(ctx.app).get('/api/me').set('Cookie', await sessionCookie(ctx.key, staying.id)).expect(200);
+    expect(await generationOf(staying.id)).toBe(0);
+  });
+
+  it('rejects a token whose generation claim was edited: the HS256 signature no longer matches (RFC 7515 §5.2)', async () => {
+    const person = await insertPerson(ctx.db, 'edited-gen');
+    const old = await signSessionToken(ctx.key, { userId: person.id, generation: 0 });
+    await request(ctx.app).post('/api/auth/signout').set('Cookie', `${SESSION_COOKIE}=${old}`).expect(204);
+    // The holder of a signed-out cookie raises "gen" to the current generation, keeping the signature.
+    const [header, payload, signature] = old.split('.');
+    const claims = JSON.parse(Buffer.from(payload, 'base64url').toString('utf8')) as Record<string, unknown>;
+    expect(claims.gen).toBe(0);
+    const edited = Buffer.from(JSON.stringify({ ...claims, gen: 1 })).toString('base64url');
+    const res = await request(ctx.app).get('/api/me').set('Cookie', `${SESSION_COOKIE}=${header}.${edited}.${signature}`);
+    expect(res.status).toBe(401);
+    expect(res.body.error.code).toBe('UNAUTHENTICATED');
+    expect(res.body.error.message).toMatch(/not valid/);
+  });
+
+  it('rejects a well-signed token whose generation is not the current one, or is missing or malformed (tokens from before generations)', async () => {
+    const person = await insertPerson(ctx.db, 'wrong-gen');
+    const ahead = await signSessionToken(ctx.key, { userId: person.id, generation: 5 });
+    const resAhead = await request(ctx.app).get('/api/me').set('Cookie', `${SESSION_COOKIE}=${ahead}`);
+    expect(resAhead.status).toBe(401);
+    expect(resAhead.body.error.message).toMatch(/sign-out/);
+
+    const sign = (extra: Record<string, unknown>) =>
+      new SignJWT(extra).setProtectedHeader({ alg: 'HS256' }).setSubject(person.id).setIssuer('sheetsmith').setExpirationTime('1h').sign(ctx.key);
+    for (const extra of [{}, { gen: '0' }, { gen: -1 }, { gen: 0.5 }, { gen: null }]) {
+      const res = await request(ctx.app).get('/api/me').set('Cookie', `${SESSION_COOKIE}=${await sign(extra)}`);
+      expect(res.status, JSON.stringify(extra)).toBe(401);
+      expect(res.body.error.message, JSON.stringify(extra)).toMatch(/not valid/);
+    }
+    // The same hand-made shape with the right generation is accepted, so the rejections above are about "gen".
+    await request(ctx.app).get('/api/me').set('Cookie', `${SESSION_COOKIE}=${await sign({ gen: 0 })}`).expect(200);
+  });
+
+  it('refuses to sign a token for a generation that is not a non-negative integer', async () => {
+    await expect(signSessionToken(ctx.key, { userId: 'x', generation: -1 })).rejects.toThrow(/non-negative integer, got -1/);
+    await expect(signSessionToken(ctx.key, { userId: 'x', generation: 1.5 })).rejects.toThrow(/non-negative integer, got 1.5/);
   });
 });
 

@@ -3,6 +3,7 @@
  * scripts/test.sh), an in-process app, and people with roles made directly in the database.
  */
 import { randomBytes, randomUUID } from 'node:crypto';
+import { eq } from 'drizzle-orm';
 import type { Express } from 'express';
 import type { Pool } from 'pg';
 import { createDb, createPool, type Db } from '../../db/client';
@@ -80,9 +81,19 @@ export async function insertPerson(db: Db, tag: string, isAdmin = false): Promis
   return { id: row.id, email };
 }
 
-/** Returns a Cookie header value holding a valid session for `userId`. */
-export async function sessionCookie(key: Uint8Array, userId: string): Promise<string> {
-  return `${SESSION_COOKIE}=${await signSessionToken(key, userId)}`;
+/**
+ * Returns a Cookie header value holding a session for `userId` at `generation`; the default 0 is the column's
+ * default, so it is valid for a person made by `insertPerson` who has not signed out since.
+ */
+export async function sessionCookie(key: Uint8Array, userId: string, generation = 0): Promise<string> {
+  return `${SESSION_COOKIE}=${await signSessionToken(key, { userId, generation })}`;
+}
+
+/** Returns a Cookie header value holding a valid session for `userId` at the person's current generation in the database. */
+export async function currentSessionCookie(ctx: TestContext, userId: string): Promise<string> {
+  const [row] = await ctx.db.select({ generation: users.sessionGeneration }).from(users).where(eq(users.id, userId));
+  if (!row) throw new Error(`no user ${userId} in the test database`);
+  return sessionCookie(ctx.key, userId, row.generation);
 }
 
 export type Persona = 'anonymous' | 'viewer' | 'editor' | 'owner' | 'otherOwner' | 'admin';
