@@ -16,7 +16,8 @@ if ! flock -n 8; then
 fi
 
 ensure_node_deps
-bash scripts/postgres.sh
+# The cluster outlives this run: it must not inherit the run lock (fd 8), or the next run waits forever.
+bash scripts/postgres.sh 8>&-
 PG_BIN=$(pg_find_bin)
 TEST_DB=sheetsmith_test
 pg_recreate_database "$TEST_DB"
