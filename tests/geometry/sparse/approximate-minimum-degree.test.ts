@@ -4,31 +4,7 @@ import { approximateMinimumDegree } from '../../../geometry/sparse/approximate-m
 import { choleskyFactor } from '../../../geometry/sparse/cholesky';
 import { nestedDissectionOrdering } from '../../../geometry/sparse/nested-dissection';
 import { fromTriplets, type SparseSymmetricMatrix } from '../../../geometry/sparse/sparse-symmetric-matrix';
-import { gridLaplacian, parkMiller, randomSpd } from './dense-reference';
-
-/** Graph Laplacian + I of an undirected graph given as an edge list. */
-function laplacianOf(n: number, edges: [number, number][]): SparseSymmetricMatrix {
-  const rows: number[] = [];
-  const cols: number[] = [];
-  const vals: number[] = [];
-  const deg = new Float64Array(n);
-  for (const [a, b] of edges) {
-    rows.push(a);
-    cols.push(b);
-    vals.push(-1);
-    deg[a]++;
-    deg[b]++;
-  }
-  for (let v = 0; v < n; v++) {
-    rows.push(v);
-    cols.push(v);
-    vals.push(deg[v] + 1);
-  }
-  return fromTriplets(n, rows, cols, vals);
-}
-
-const isPermutation = (p: Int32Array, n: number): boolean =>
-  p.length === n && new Set(p).size === n && p.every((v) => v >= 0 && v < n);
+import { gridLaplacian, isPermutation, laplacianOf, parkMiller, randomSpd } from './dense-reference';
 
 describe('approximateMinimumDegree', () => {
   it('orders every tree without fill (Parter 1961: eliminating leaves first creates no new edge)', () => {

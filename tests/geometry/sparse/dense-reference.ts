@@ -1,3 +1,5 @@
+import { fromTriplets, type SparseSymmetricMatrix } from '../../../geometry/sparse/sparse-symmetric-matrix';
+
 /**
  * Test references for the sparse module: a seeded generator and a dense solver written straight from the
  * textbook, independent of the code under test.
@@ -122,3 +124,28 @@ export function gridLaplacian(k: number, shift: number): { rows: number[]; cols:
   }
   return { rows, cols, vals };
 }
+
+/** Graph Laplacian + I of an undirected graph given as an edge list. */
+export function laplacianOf(n: number, edges: [number, number][]): SparseSymmetricMatrix {
+  const rows: number[] = [];
+  const cols: number[] = [];
+  const vals: number[] = [];
+  const deg = new Float64Array(n);
+  for (const [a, b] of edges) {
+    rows.push(a);
+    cols.push(b);
+    vals.push(-1);
+    deg[a]++;
+    deg[b]++;
+  }
+  for (let v = 0; v < n; v++) {
+    rows.push(v);
+    cols.push(v);
+    vals.push(deg[v] + 1);
+  }
+  return fromTriplets(n, rows, cols, vals);
+}
+
+/** True when `p` holds each of 0…n−1 exactly once. */
+export const isPermutation = (p: Int32Array, n: number): boolean =>
+  p.length === n && new Set(p).size === n && p.every((v) => v >= 0 && v < n);

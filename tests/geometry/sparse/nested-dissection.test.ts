@@ -2,31 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { choleskyFactor } from '../../../geometry/sparse/cholesky';
 import { nestedDissectionOrdering } from '../../../geometry/sparse/nested-dissection';
 import { fromTriplets } from '../../../geometry/sparse/sparse-symmetric-matrix';
-import { gridLaplacian } from './dense-reference';
-
-/** Graph Laplacian + I of an undirected graph given as an edge list (one triangle of triplets). */
-function laplacianOf(n: number, edges: [number, number][]): ReturnType<typeof fromTriplets> {
-  const rows: number[] = [];
-  const cols: number[] = [];
-  const vals: number[] = [];
-  const deg = new Float64Array(n);
-  for (const [a, b] of edges) {
-    rows.push(a);
-    cols.push(b);
-    vals.push(-1);
-    deg[a]++;
-    deg[b]++;
-  }
-  for (let v = 0; v < n; v++) {
-    rows.push(v);
-    cols.push(v);
-    vals.push(deg[v] + 1);
-  }
-  return fromTriplets(n, rows, cols, vals);
-}
-
-const isPermutation = (p: Int32Array, n: number): boolean =>
-  p.length === n && new Set(p).size === n && p.every((v) => v >= 0 && v < n);
+import { gridLaplacian, isPermutation, laplacianOf } from './dense-reference';
 
 describe('nestedDissectionOrdering', () => {
   it('terminates on a graph with few, uneven breadth-first levels (regression: it once looped forever)', () => {
