@@ -1,0 +1,156 @@
+/**
+ * A build's pattern (the flattened pieces of its newest sculpt) and the per-face file that ties the 3D view to
+ * the pieces: which piece each face belongs to and how much it stretches.
+ */
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import type { PatternDoc } from '../geometry/pattern/pattern-doc';
+import { ApiError, apiErrorFromResponse, apiRequest } from './api-client';
+
+const id = z.union([z.string().min(1), z.number().int()]).transform(String);
+const timestamp = z.string().refine((s) => !Number.isNaN(Date.parse(s)), 'expected an ISO 8601 date-time');
+
+/** Work states the server's job rows go through (CONTRACTS.md, SculptView and PatternView). */
+export const JOB_STATES = ['queued', 'running', 'done', 'failed'] as const;
+export type JobState = (typeof JOB_STATES)[number];
+
+/**
+ * A pattern document as the API sends it. The server built it with the engine, so only the parts the screens
+ * read are checked here (pieces with label and outline, seams with label and bevel); the rest passes through.
+ */
+const patternDocSchema = z.custom<PatternDoc>((value) => {
+  if (!value || typeof value !== 'object') return false;
+  const doc = value as { pieces?: unknown; seams?: unknown; warnings?: unknown };
+  if (!Array.isArray(doc.pieces) || !Array.isArray(doc.seams)) return false;
+  const piecesOk = doc.pieces.every(
+    (p: unknown) => !!p && typeof (p as { label?: unknown }).label === 'string' && Array.isArray((p as { outline?: unknown }).outline),
+  );
+  const seamsOk = doc.seams.every(
+    (s: unknown) => !!s && typeof (s as { label?: unknown }).label === 'string' && typeof (s as { bevel?: unknown }).bevel === 'object',
+  );
+  return piecesOk && seamsOk;
+}, 'expected a pattern document with pieces (label, outline) and seams (label, bevel)');
+
+export const patternViewSchema = z.object({
+  id,
+  sculptId: id,
+  seamRevision: z.number().int(),
+  status: z.enum(JOB_STATES),
+  progress: z.number().min(0).max(100).nullable().optional().transform((p) => p ?? 0),
+  stage: z.string().nullable().optional().transform((s) => s ?? null),
+  error: z.string().nullable().optional().transform((s) => s ?? null),
+  doc: patternDocSchema.nullable(),
+  facesUrl: z.string().nullable(),
+  createdAt: timestamp,
+  finishedAt: timestamp.nullable(),
+});
+export type PatternView = z.infer<typeof patternViewSchema>;
+
+const patternEnvelopeSchema = z.object({ pattern: patternViewSchema.nullable() });
+const patternQueuedSchema = z.object({ pattern: patternViewSchema });
+
+/** True while a job of this state is still to finish, so the screen keeps asking. */
+export function isJobActive(status: JobState | null | undefined): boolean {
+  return status === 'queued' || status === 'running';
+}
+
+/** How often a queued or running job is polled, ms (the brief: every 2 s). */
+export const JOB_POLL_MS = 2_000;
+
+/** Query key of a build's pattern; piece and bench keys of the same build sit beside it. */
+export const patternQueryKey = (shopId: string, buildId: string) => ['shops', shopId, 'builds', buildId, 'pattern'] as const;
+
+/** `/api/shops/:shopId/builds/:buildId` with both ids escaped. */
+export const buildApiPath = (shopId: string, buildId: string) =>
+  `/api/shops/${encodeURIComponent(shopId)}/builds/${encodeURIComponent(buildId)}`;
+
+/**
+ * GET /api/shops/:shopId/builds/:buildId/pattern → the newest pattern of the newest sculpt, or `null` when the
+ * build has none yet. Polls every 2 s while the pattern job is queued or running, and stops once it is done or
+ * failed. A 404 or 403 is not retried.
+ */
+export function usePattern(shopId: string, buildId: string) {
+  return useQuery({
+    queryKey: patternQueryKey(shopId, buildId),
+    queryFn: async () => (await apiRequest('GET', `${buildApiPath(shopId, buildId)}/pattern`, patternEnvelopeSchema)).pattern,
+    refetchInterval: (query) => (isJobActive(query.state.data?.status) ? JOB_POLL_MS : false),
+    retry: (count, error) => count < 2 && !(error instanceof ApiError && (error.status === 404 || error.status === 403)),
+  });
+}
+
+/** POST /api/shops/:shopId/builds/:buildId/pattern: flatten again from the current seams and piece settings. */
+export function useRequeuePattern(shopId: string, buildId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async () => (await apiRequest('POST', `${buildApiPath(shopId, buildId)}/pattern`, patternQueuedSchema)).pattern,
+    onSuccess: (pattern) => qc.setQueryData(patternQueryKey(shopId, buildId), pattern),
+  });
+}
+
+/** The decoded faces file: for each face of the working mesh, its piece (index into `doc.pieces`, −1 none) and stretch %. */
+export interface PatternFaces {
+  pieceIndex: Int32Array;
+  stretchPct: Float32Array;
+}
+
+/**
+ * Decodes a pattern's faces file (CONTRACTS.md, "GET .../patterns/:patternId/faces"): little-endian u32 face
+ * count F, then F Int32 piece indices (−1 for a face in no piece), then F Float32 stretch percentages.
+ * Throws an Error naming the byte length found and the length the header asks for when the file is cut short or
+ * has bytes left over, and when a stretch value is not a finite number (naming the face).
+ */
+export function decodePatternFaces(bytes: Uint8Array): PatternFaces {
+  if (bytes.byteLength < 4) {
+    throw new Error(`The faces file is ${bytes.byteLength} bytes long; it needs at least 4 bytes for the face count.`);
+  }
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const count = view.getUint32(0, true);
+  const expected = 4 + count * 8;
+  if (bytes.byteLength !== expected) {
+    throw new Error(`The faces file is ${bytes.byteLength} bytes long but its header names ${count} faces, which need ${expected} bytes.`);
+  }
+  const pieceIndex = new Int32Array(count);
+  const stretchPct = new Float32Array(count);
+  for (let f = 0; f < count; f++) pieceIndex[f] = view.getInt32(4 + f * 4, true);
+  const stretchStart = 4 + count * 4;
+  for (let f = 0; f < count; f++) {
+    const s = view.getFloat32(stretchStart + f * 4, true);
+    if (!Number.isFinite(s)) throw new Error(`The faces file gives face ${f} a stretch that is not a number.`);
+    stretchPct[f] = s;
+  }
+  return { pieceIndex, stretchPct };
+}
+
+/**
+ * Fetches and decodes a pattern's faces file from `url` (a pattern's `facesUrl`); disabled while `url` is null.
+ * The file never changes for one pattern id, so it is kept as long as it is used.
+ */
+export function usePatternFaces(url: string | null) {
+  return useQuery({
+    queryKey: ['pattern-faces', url ?? ''],
+    enabled: url !== null,
+    staleTime: Infinity,
+    queryFn: async (): Promise<PatternFaces> => {
+      let res: Response;
+      try {
+        res = await fetch(url!, { credentials: 'same-origin', headers: { Accept: 'application/octet-stream' } });
+      } catch {
+        throw new ApiError(0, 'NETWORK', 'Cannot reach the Sheetsmith server. Check your connection and try again.');
+      }
+      if (!res.ok) {
+        let body: unknown;
+        try {
+          body = await res.json();
+        } catch {
+          body = undefined;
+        }
+        throw apiErrorFromResponse(res.status, body);
+      }
+      try {
+        return decodePatternFaces(new Uint8Array(await res.arrayBuffer()));
+      } catch (e) {
+        throw new ApiError(res.status, 'BAD_RESPONSE', `The pattern's faces file could not be read: ${(e as Error).message}`);
+      }
+    },
+  });
+}
