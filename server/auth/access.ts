@@ -34,6 +34,7 @@ export const ROUTE_ACCESS: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'viewer' } },
   { method: 'PATCH', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'editor' } },
   { method: 'DELETE', path: '/api/shops/:shopId/builds/:buildId', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/overview', access: { shopRole: 'viewer' } },
   { method: 'POST', path: '/api/shops/:shopId/builds/:buildId/print-sets', access: { shopRole: 'editor' } },
   { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets', access: { shopRole: 'viewer' } },
   { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets/:printSetId', access: { shopRole: 'viewer' } },

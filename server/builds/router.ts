@@ -4,6 +4,7 @@ import { buildCreateBody, buildRenameBody } from '../../db/validation';
 import { defineRoute, type MountableRoute } from '../http/define-route';
 import { buildParams, shopParams } from '../http/params';
 import type { FileStore } from '../storage/file-store';
+import { getBuildOverview } from './build-overview';
 import { createBuild, getBuild, listBuilds, removeBuild, renameBuild } from './service';
 
 export interface BuildRouteDeps {
@@ -36,6 +37,13 @@ export function buildRoutes({ db, files }: BuildRouteDeps): MountableRoute[] {
       access: { shopRole: 'viewer' },
       params: buildParams,
       handler: async ({ shop, params }) => ({ status: 200, json: { build: await getBuild(db, shop.id, params.buildId) } }),
+    }),
+    defineRoute({
+      method: 'GET',
+      path: '/api/shops/:shopId/builds/:buildId/overview',
+      access: { shopRole: 'viewer' },
+      params: buildParams,
+      handler: async ({ user, shop, params }) => ({ status: 200, json: { overview: await getBuildOverview(db, user, shop, params.buildId) } }),
     }),
     defineRoute({
       method: 'PATCH',

@@ -7,7 +7,19 @@ import type { SessionUser } from '../http/define-route';
 import { printSetFilePrefix } from '../print-sets/print-set-files';
 import { selectPrintSetIdsOfBuild } from '../print-sets/queries';
 import type { FileStore } from '../storage/file-store';
-import { deleteBuild, insertBuild, selectBuild, selectBuilds, updateBuildName, type BuildRow } from './queries';
+import { benchTotals, buildStage, type BenchTotals, type BuildStage } from './build-progress';
+import {
+  deleteBuild,
+  insertBuild,
+  selectBuild,
+  selectBuilds,
+  selectBuildWork,
+  selectPieceTicks,
+  updateBuildName,
+  type BuildRow,
+  type BuildWorkRow,
+  type PieceTickRow,
+} from './queries';
 
 export interface BuildView {
   id: string;
@@ -21,9 +33,53 @@ function toView(row: BuildRow): BuildView {
   return { id: row.id, shopId: row.shopId, name: row.name, createdAt: row.createdAt.toISOString(), updatedAt: row.updatedAt.toISOString() };
 }
 
-/** Returns the shop's builds, newest first. */
-export async function listBuilds(db: Db, shopId: string): Promise<BuildView[]> {
-  return (await selectBuilds(db, shopId)).map(toView);
+/** Where a build stands, as the builds list shows it. */
+export interface BuildSummary {
+  stage: BuildStage;
+  sculptVersion: number | null;
+  sculptStatus: BuildWorkRow['sculptStatus'];
+  /** Processing progress of the newest sculpt, 0–100 (null without a sculpt). */
+  sculptProgress: number | null;
+  patternStatus: BuildWorkRow['patternStatus'];
+  /** Pieces of the newest finished pattern of the newest sculpt. */
+  pieceCount: number;
+  /** Bench checklist done, percent (see benchTotals). */
+  progressPct: number;
+}
+
+export type BuildListItem = BuildView & { summary: BuildSummary };
+
+function ticksByBuild(ticks: readonly PieceTickRow[]): Map<string, PieceTickRow[]> {
+  const out = new Map<string, PieceTickRow[]>();
+  for (const t of ticks) {
+    const list = out.get(t.buildId);
+    if (list) list.push(t);
+    else out.set(t.buildId, [t]);
+  }
+  return out;
+}
+
+function summaryOf(work: BuildWorkRow | undefined, totals: BenchTotals): BuildSummary {
+  return {
+    stage: buildStage(work ?? null, totals),
+    sculptVersion: work?.sculptVersion ?? null,
+    sculptStatus: work?.sculptStatus ?? null,
+    sculptProgress: work?.sculptProgress ?? null,
+    patternStatus: work?.patternStatus ?? null,
+    pieceCount: totals.pieces,
+    progressPct: totals.progressPct,
+  };
+}
+
+/** Returns the shop's builds, newest first, each with its summary (newest sculpt, pieces, bench progress, stage). */
+export async function listBuilds(db: Db, shopId: string): Promise<BuildListItem[]> {
+  const [rows, work, ticks] = await Promise.all([selectBuilds(db, shopId), selectBuildWork(db, shopId), selectPieceTicks(db, shopId)]);
+  const workBy = new Map(work.map((w) => [w.buildId, w]));
+  const ticksBy = ticksByBuild(ticks);
+  return rows.map((row) => {
+    const w = workBy.get(row.id);
+    return { ...toView(row), summary: summaryOf(w, benchTotals(w?.pieceLabels ?? null, ticksBy.get(row.id) ?? [])) };
+  });
 }
 
 /** Returns one build; throws 404 NOT_FOUND when the shop has no such build. */
