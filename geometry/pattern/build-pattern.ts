@@ -68,6 +68,24 @@ export function buildPattern(model: ImportedModel, options: BuildPatternOptions 
  * change of thickness, surface or budget does not repeat cleaning and seam finding).
  */
 export function patternFromPieces(prepared: PreparedPieces, options: BuildPatternOptions = {}): PatternDoc {
+  return patternWithFaceMaps(prepared, options).doc;
+}
+
+/**
+ * Per face of the prepared (cleaned) sculpt: which entry of `doc.pieces` it was cut into (copies grouped with a
+ * template map to the template's index; −1 for none), and its stretch in the flat pattern, percent
+ * (max(|σ1−1|, |σ2−1|)·100, Sander et al. 2001). Both arrays have one entry per face of `prepared.mesh`.
+ */
+export interface PatternFaceMaps {
+  pieceIndex: Int32Array;
+  stretchPct: Float32Array;
+}
+
+/**
+ * patternFromPieces plus the per-face maps the 3D view colours the sculpt with (PatternFaceMaps).
+ * Same arguments, throws and determinism as patternFromPieces.
+ */
+export function patternWithFaceMaps(prepared: PreparedPieces, options: BuildPatternOptions = {}): { doc: PatternDoc; faces: PatternFaceMaps } {
   const thickness = options.thickness ?? DEFAULT_THICKNESS_MM;
   const surface = options.surface ?? 'outer';
   const budget = options.stretchBudgetPct ?? 3;
@@ -267,7 +285,17 @@ export function patternFromPieces(prepared: PreparedPieces, options: BuildPatter
   }
   const doc: PatternDoc = { units: 'mm', pieces: outPieces, seams, warnings, cautions: [...SHOP_CAUTIONS] };
   if (options.name) doc.name = options.name;
-  return doc;
+  const groupOf = new Int32Array(pieces.length);
+  groups.forEach((g, gi) => g.members.forEach((m) => (groupOf[m.index] = gi)));
+  const F = pieceOfFace.length;
+  const faces: PatternFaceMaps = { pieceIndex: new Int32Array(F).fill(-1), stretchPct: new Float32Array(F) };
+  for (let f = 0; f < F; f++) {
+    const p = pieceOfFace[f];
+    if (p < 0) continue;
+    faces.pieceIndex[f] = groupOf[p];
+    faces.stretchPct[f] = flattened[p].flat.trianglePct[localFaceOf[f]];
+  }
+  return { doc, faces };
 }
 
 /** The half-edge of global face f that starts at global vertex v. */
