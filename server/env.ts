@@ -28,10 +28,42 @@ const envSchema = z
     /** Sign-up attempts allowed per client address per window (server/auth/sign-up-limit.ts). */
     SIGNUP_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
     SIGNUP_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(60),
+    /** Where stored files go: `disk` (FILES_DIR, the default) or `s3` (an S3-compatible store, settings below). */
+    STORAGE: z.enum(['disk', 's3']).default('disk'),
+    /** S3 API base URL, e.g. http://127.0.0.1:8474 for the local s3rver; unset = the provider's default endpoint. */
+    S3_ENDPOINT: z.string().url('must be a URL such as http://127.0.0.1:8474').optional(),
+    S3_BUCKET: z.string().min(3).default('sheetsmith'),
+    S3_REGION: z.string().min(1).default('us-east-1'),
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    /** HTTP API of the local mail catcher (server/dev/mail-catcher.ts); the admin mail page reads it when set. */
+    MAIL_CATCHER_URL: z.string().url('must be a URL such as http://127.0.0.1:8472').optional(),
+    /** How often a worker expires stuck jobs and archives old ones (pg-boss maintenance), in seconds. */
+    JOB_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).default(120),
+    /** Overrides every queue's job expiry (seconds) when set; the fault tests use a short one. */
+    JOB_EXPIRE_SECONDS: z.coerce.number().int().min(1).optional(),
+    /** Where e-mail goes: an smtp:// or smtps:// URL (the local mail catcher by default, server/dev/mail-catcher.ts). */
+    SMTP_URL: z
+      .string()
+      .regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL')
+      .default('smtp://127.0.0.1:8471'),
+    /** Sender of every e-mail, "Name <address>". */
+    MAIL_FROM: z.string().min(3).default('Sheetsmith <no-reply@sheetsmith.example.com>'),
+    /** Origin people reach the app at, used for links in e-mails; defaults to http://HOST:PORT. */
+    PUBLIC_URL: z.string().url('must be a URL such as https://sheetsmith.example.com').optional(),
+    /** Password-reset requests allowed per client address, and per e-mail address, per window. */
+    PASSWORD_RESET_RATE_LIMIT_IP: z.coerce.number().int().min(1).default(10),
+    PASSWORD_RESET_RATE_LIMIT_EMAIL: z.coerce.number().int().min(1).default(3),
+    PASSWORD_RESET_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(60),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required when NODE_ENV=production' });
+    }
+    if (env.STORAGE === 's3') {
+      for (const name of ['S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {
+        if (!env[name]) ctx.addIssue({ code: 'custom', path: [name], message: 'is required when STORAGE=s3' });
+      }
     }
   });
 
