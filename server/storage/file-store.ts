@@ -1,7 +1,9 @@
 /**
- * Where generated files live. The server and the workers see only this interface, so the local disk store
- * (local-disk-store.ts) can later be joined by an S3-compatible one without touching the features that use it.
- * Keys are relative, slash-separated names such as `print-sets/<id>/print-set.pdf`.
+ * Where stored files live (uploaded sculpts, working meshes, pattern data, print sets, pack covers). The server
+ * and the workers see only this interface; local-disk-store.ts and s3-store.ts implement it and
+ * create-file-store.ts picks one from the settings. Keys are relative, slash-separated names such as
+ * `print-sets/<id>/print-set.pdf`, where `<id>` is a random UUID from the database, so keys cannot be guessed
+ * and never carry a name chosen by a user.
  */
 import type { Readable } from 'node:stream';
 
@@ -16,6 +18,8 @@ export interface FileStore {
   put(key: string, bytes: Uint8Array): Promise<void>;
   /** Opens the file under `key`; null when there is none. */
   open(key: string): Promise<StoredFile | null>;
+  /** Removes the one file under `key`; no error when there is none. */
+  remove(key: string): Promise<void>;
   /** Removes every file whose key starts with `prefix/` (and `prefix` itself); no error when none exist. */
   removePrefix(prefix: string): Promise<void>;
 }

@@ -38,6 +38,15 @@ export function localDiskStore(rootDir: string): FileStore {
         throw err;
       }
     },
+    async remove(key) {
+      const target = pathOf(key);
+      const info = await stat(target).catch((err: NodeJS.ErrnoException) => {
+        if (err.code === 'ENOENT') return null;
+        throw err;
+      });
+      // A key naming a directory is a prefix, not a file: removing it here would take other files with it.
+      if (info?.isFile()) await rm(target, { force: true });
+    },
     async removePrefix(prefix) {
       await rm(pathOf(prefix), { recursive: true, force: true });
     },
