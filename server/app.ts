@@ -27,7 +27,7 @@ import type { JobSender } from './jobs/job-sender';
 import { PRINT_SET_BODY_LIMIT, PRINT_SETS_PATH, printSetRoutes } from './print-sets/router';
 import { shopRoutes } from './shops/router';
 import type { FileStore } from './storage/file-store';
-import { localDiskStore } from './storage/local-disk-store';
+import { createFileStore } from './storage/create-file-store';
 
 export interface AppDeps {
   env: Env;
@@ -45,7 +45,7 @@ export interface AppDeps {
   signUpLimit?: SignUpLimitOptions | null;
   /** Puts heavy work on the job queue; without it, routes that queue work answer 503 QUEUE_UNAVAILABLE. */
   jobs?: JobSender;
-  /** Where generated files are kept; defaults to the local-disk store in FILES_DIR. */
+  /** Where stored files are kept; defaults to the store the settings name (STORAGE, server/storage/create-file-store.ts). */
   files?: FileStore;
 }
 
@@ -55,7 +55,7 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
   const signInLimit = deps.signInLimit ?? { max: deps.env.SIGNIN_RATE_LIMIT, windowMs: deps.env.SIGNIN_RATE_WINDOW_MINUTES * 60_000 };
   const signUpLimit =
     deps.signUpLimit === undefined ? { max: deps.env.SIGNUP_RATE_LIMIT, windowMs: deps.env.SIGNUP_RATE_WINDOW_MINUTES * 60_000 } : deps.signUpLimit;
-  const files = deps.files ?? localDiskStore(deps.env.FILES_DIR);
+  const files = deps.files ?? createFileStore(deps.env);
   return [
     ...healthRoutes(deps.pool),
     ...authRoutes({ db: deps.db, sessionKey: key, cookieSecure, signInLimit, signUpLimit }),

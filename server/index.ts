@@ -11,6 +11,7 @@ import { parseEnv } from './env';
 import { pgBossJobSender } from './jobs/job-sender';
 import { startQueue, stopQueue } from './jobs/queue';
 import { createLogger } from './logger';
+import { createFileStore } from './storage/create-file-store';
 
 async function main(): Promise<void> {
   const env = parseEnv(process.env);
@@ -20,7 +21,7 @@ async function main(): Promise<void> {
   const sessionSecret = loadOrCreateSessionSecret(env.SESSION_SECRET, path.join(process.cwd(), '.data', 'session-secret'));
   // The API only sends jobs: no maintenance or cron here (server/worker.ts does those).
   const boss = await startQueue(env.DATABASE_URL, logger, { supervise: false, schedule: false });
-  const app = createApp({ env, pool, db: createDb(pool), sessionSecret, logger, jobs: pgBossJobSender(boss) });
+  const app = createApp({ env, pool, db: createDb(pool), sessionSecret, logger, jobs: pgBossJobSender(boss), files: createFileStore(env) });
 
   const server = app.listen(env.PORT, env.HOST, () => {
     logger.info({ url: `http://${env.HOST}:${env.PORT}` }, 'Sheetsmith API listening');

@@ -11,16 +11,16 @@ import { startQueue, stopQueue } from './jobs/queue';
 import { JOB_TYPES } from './jobs/job-types';
 import { createLogger } from './logger';
 import { failStalePrintSets } from './print-sets/stale-print-sets';
-import { localDiskStore } from './storage/local-disk-store';
+import { createFileStore } from './storage/create-file-store';
 
 async function main(): Promise<void> {
   const env = parseEnv(process.env);
   const logger = createLogger(env.LOG_LEVEL, 'worker');
   const pool = createPool(env.DATABASE_URL, 4);
   await runMigrations(pool);
-  const boss = await startQueue(env.DATABASE_URL, logger, { supervise: true, schedule: true });
-  const context = { db: createDb(pool), files: localDiskStore(env.FILES_DIR) };
-  await registerWorkers(boss, context, logger, { schedule: true, pollingIntervalSeconds: 2 });
+  const boss = await startQueue(env.DATABASE_URL, logger, { supervise: true, schedule: true, maintenanceIntervalSeconds: env.JOB_MAINTENANCE_SECONDS });
+  const context = { db: createDb(pool), files: createFileStore(env) };
+  await registerWorkers(boss, context, logger, { schedule: true, pollingIntervalSeconds: 2, expireInSeconds: env.JOB_EXPIRE_SECONDS });
   // Print sets abandoned while no worker ran are failed now rather than at the first scheduled check.
   logger.info({ result: await failStalePrintSets(context) }, 'stale print sets checked');
   logger.info({ jobTypes: JOB_TYPES.map((t) => t.name) }, 'worker ready');

@@ -10,10 +10,15 @@ export const QUEUE_SCHEMA = 'pgboss';
 
 /**
  * Returns a started pg-boss instance on `databaseUrl` (creating or upgrading its schema on first start).
- * `supervise` turns on pg-boss's own maintenance (expiring and archiving jobs); one per deployment is
- * enough but more are harmless.
+ * `supervise` turns on pg-boss's own maintenance (expiring jobs whose worker died, so they are retried, and
+ * archiving old ones) every `maintenanceIntervalSeconds` (default 120); one per deployment is enough but more
+ * are harmless.
  */
-export async function startQueue(databaseUrl: string, logger: Logger, options: { supervise: boolean; schedule: boolean }): Promise<PgBoss> {
+export async function startQueue(
+  databaseUrl: string,
+  logger: Logger,
+  options: { supervise: boolean; schedule: boolean; maintenanceIntervalSeconds?: number },
+): Promise<PgBoss> {
   const boss = new PgBoss({
     connectionString: databaseUrl,
     schema: QUEUE_SCHEMA,
@@ -21,6 +26,7 @@ export async function startQueue(databaseUrl: string, logger: Logger, options: {
     max: 4,
     supervise: options.supervise,
     schedule: options.schedule,
+    ...(options.maintenanceIntervalSeconds ? { maintenanceIntervalSeconds: options.maintenanceIntervalSeconds } : {}),
   });
   boss.on('error', (err: unknown) => logger.error({ err }, 'job queue error'));
   await boss.start();

@@ -5,16 +5,19 @@ import { JOB_TYPES, type JobContext, type JobType } from './job-types';
 
 /**
  * Creates each job type's queue, schedules the repeating ones when `schedule` is set, and starts polling
- * every `pollingIntervalSeconds` (pg-boss's minimum is 0.5). Resolves once all workers are registered.
+ * every `pollingIntervalSeconds` (pg-boss's minimum is 0.5). `expireInSeconds`, when given, replaces every
+ * queue's job expiry (jobs sent afterwards carry it), so tests can see a killed worker's job retried within
+ * seconds. Resolves once all workers are registered.
  */
 export async function registerWorkers(
   boss: PgBoss,
   context: JobContext,
   logger: Logger,
-  options: { schedule: boolean; pollingIntervalSeconds: number; jobTypes?: readonly JobType[] },
+  options: { schedule: boolean; pollingIntervalSeconds: number; jobTypes?: readonly JobType[]; expireInSeconds?: number },
 ): Promise<void> {
   for (const type of options.jobTypes ?? JOB_TYPES) {
     await boss.createQueue(type.name, { name: type.name, ...type.queue });
+    if (options.expireInSeconds) await boss.updateQueue(type.name, { name: type.name, ...type.queue, expireInSeconds: options.expireInSeconds });
     if (options.schedule && type.cron) await boss.schedule(type.name, type.cron);
     await boss.work(type.name, { pollingIntervalSeconds: options.pollingIntervalSeconds }, async (jobs) => {
       const results = [];
