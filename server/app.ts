@@ -26,6 +26,7 @@ import { createLogger } from './logger';
 import type { JobSender } from './jobs/job-sender';
 import { PRINT_SET_BODY_LIMIT, PRINT_SETS_PATH, printSetRoutes } from './print-sets/router';
 import { shopRoutes } from './shops/router';
+import { SEAMS_BODY_LIMIT, SEAMS_PATH, sculptRoutes } from './sculpts/router';
 import type { FileStore } from './storage/file-store';
 import { createFileStore } from './storage/create-file-store';
 
@@ -64,6 +65,7 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
     ...printSetRoutes({ db: deps.db, files, jobs: deps.jobs ?? null }),
     ...auditRoutes(deps.db),
     ...adminRoutes(deps.db),
+    ...sculptRoutes({ db: deps.db, files, jobs: deps.jobs ?? null, maxUploadBytes: deps.env.SCULPT_MAX_UPLOAD_BYTES }),
   ];
 }
 
@@ -121,6 +123,7 @@ export function createApp(deps: AppDeps): Express {
   // A pattern document can run to megabytes; every other body stays small. The first parser to read a body
   // marks it read, so the general one below skips these requests.
   app.post(PRINT_SETS_PATH, express.json({ limit: PRINT_SET_BODY_LIMIT }));
+  app.put(SEAMS_PATH, express.json({ limit: SEAMS_BODY_LIMIT }));
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 

@@ -55,6 +55,8 @@ const envSchema = z
     PASSWORD_RESET_RATE_LIMIT_IP: z.coerce.number().int().min(1).default(10),
     PASSWORD_RESET_RATE_LIMIT_EMAIL: z.coerce.number().int().min(1).default(3),
     PASSWORD_RESET_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(60),
+    /** Largest sculpt upload in bytes (DESIGN.md "Sculpt in": 200 MB); tests set a small one. */
+    SCULPT_MAX_UPLOAD_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {

@@ -41,6 +41,13 @@ export const ROUTE_ACCESS: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets/:printSetId/files/:fileName', access: { shopRole: 'viewer' } },
   { method: 'GET', path: '/api/shops/:shopId/audit', access: { shopRole: 'owner' } },
   { method: 'GET', path: '/api/admin/users', access: 'admin' },
+  { method: 'POST', path: '/api/shops/:shopId/builds/:buildId/sculpts', access: { shopRole: 'editor' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/sculpts', access: { shopRole: 'viewer' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId', access: { shopRole: 'viewer' } },
+  { method: 'PATCH', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId', access: { shopRole: 'editor' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId/mesh', access: { shopRole: 'viewer' } },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId/seams', access: { shopRole: 'viewer' } },
+  { method: 'PUT', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId/seams', access: { shopRole: 'editor' } },
 ];
 
 const ROLE_RANK: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };

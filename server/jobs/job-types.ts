@@ -7,11 +7,15 @@ import type { Db } from '../../db/client';
 import { pruneRateLimitHits } from '../auth/rate-limit-store';
 import { PRINT_SET_JOB, PRINT_SET_QUEUE, runPrintSetJob } from '../print-sets/print-set-job';
 import { failStalePrintSets, STALE_PRINT_SETS_JOB } from '../print-sets/stale-print-sets';
+import { runSculptJob, SCULPT_JOB, SCULPT_QUEUE } from '../sculpts/sculpt-job';
 import type { FileStore } from '../storage/file-store';
+import type { JobSender } from './job-sender';
 
 export interface JobContext {
   db: Db;
   files: FileStore;
+  /** Lets a job queue follow-up work (the worker passes its queue; absent where nothing follows). */
+  jobs?: JobSender;
 }
 
 export interface JobType {
@@ -41,5 +45,10 @@ export const JOB_TYPES: readonly JobType[] = [
     name: STALE_PRINT_SETS_JOB,
     cron: '*/5 * * * *',
     run: async (context) => failStalePrintSets(context),
+  },
+  {
+    name: SCULPT_JOB,
+    queue: SCULPT_QUEUE,
+    run: (context, data) => runSculptJob(context, data),
   },
 ];

@@ -13,6 +13,8 @@ import { cleanMesh } from '../../geometry/mesh/clean-mesh';
 import { boundingBox, boundingBoxDiagonal } from '../../geometry/mesh/mesh-measures';
 import { simplifyMesh } from '../../geometry/mesh/simplify-mesh';
 import { headSection, wearerScale } from '../../geometry/mesh/wearer-scale';
+import type { JobSender } from '../jobs/job-sender';
+import { queuePattern } from '../patterns/queue-pattern';
 import type { FileStore } from '../storage/file-store';
 import { carrySeams, describeCarry } from './carry-seams';
 import { meshEdges } from './mesh-edges';
@@ -25,10 +27,11 @@ export const SCULPT_INTERNAL_FAILURE = 'the sculpt could not be processed becaus
 /** Height of the head section as a fraction of the sculpt's height: about brow level on a helmet (common practice guess). */
 export const HEAD_SECTION_FRACTION = 0.5;
 
-/** What the job needs: the database and the file store. */
+/** What the job needs: the database, the file store, and optionally the queue to start the first pattern. */
 export interface ProcessSculptContext {
   db: Db;
   files: FileStore;
+  jobs?: JobSender;
 }
 
 /** The mesh and seams a previous processing left, to carry seams from. */
@@ -47,7 +50,8 @@ interface SeamSource {
 /**
  * Processes sculpt `sculptId` (a row already inserted, status queued). Resolves when the row is done or failed:
  * a bad model (GeometryError) is recorded as failed with the engine's message, including the file's line number
- * for text formats. Rejects only for failures outside the model (database, file store), after marking the row
+ * for text formats. When `ctx.jobs` is given, a finished sculpt gets its first pattern queued (queuePattern).
+ * Rejects only for failures outside the model (database, file store), after marking the row
  * failed with SCULPT_INTERNAL_FAILURE, so a queue retry can claim it again. A sculpt that is gone or already
  * done is left alone.
  */
@@ -67,7 +71,7 @@ export async function processSculpt(ctx: ProcessSculptContext, sculptId: string)
   }
 }
 
-async function runStages({ db, files }: ProcessSculptContext, row: SculptRow): Promise<void> {
+async function runStages({ db, files, jobs }: ProcessSculptContext, row: SculptRow): Promise<void> {
   const seamSource = await findSeamSource(db, files, row);
 
   await setSculptProgress(db, row.id, 10, 'parsing');
@@ -138,7 +142,10 @@ async function runStages({ db, files }: ProcessSculptContext, row: SculptRow): P
     sizeMm: [box.max[0] - box.min[0], box.max[1] - box.min[1], box.max[2] - box.min[2]],
     warnings,
   };
-  await markSculptDone(db, row.id, { report, meshKey, scale });
+  if ((await markSculptDone(db, row.id, { report, meshKey, scale })) && jobs) {
+    // The new mesh (with any carried seams) needs its first pattern; a refused queue is recorded on the pattern.
+    await queuePattern(db, jobs, { shopId: row.shopId, buildId: row.buildId, sculptId: row.id });
+  }
 }
 
 /**
