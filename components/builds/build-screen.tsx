@@ -1,5 +1,7 @@
 /**
- * One build's page: its name and dates, rename and delete as the role allows, and what comes next.
+ * One build's page: its name and dates, rename and delete as the role allows, the ways into the studio,
+ * pieces, sheets and bench screens, the sculpt versions, pieces, sheet plans, print sets, bench progress and
+ * members.
  */
 import { Link, useRouter } from 'expo-router';
 import { useEffect, useRef, useState } from 'react';
@@ -7,7 +9,10 @@ import { StyleSheet, View } from 'react-native';
 import { buildRenameBody } from '../../db/validation';
 import { useCurrentShop } from '../../hooks/current-shop';
 import { buildPermissionsFor } from '../../hooks/role-permissions';
-import { useBuild, useDeleteBuild, useRenameBuild } from '../../hooks/use-builds';
+import { useWideLayout } from '../../hooks/use-wide-layout';
+import { useBuild, useBuildOverview, useDeleteBuild, useRenameBuild } from '../../hooks/use-builds';
+import { useSculpts } from '../../hooks/use-sculpts';
+import { SculptVersions } from '../sculpts/sculpt-versions';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Loading } from '../ui/loading';
@@ -17,6 +22,8 @@ import { Screen } from '../ui/screen';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
 import { BuildNameForm } from './build-name-form';
+import { BenchSummary, MembersList, PiecesSummary, Section, SheetsSummary } from './build-overview-sections';
+import { buildHref } from './build-row';
 import { DeleteBuildConfirm } from './delete-build-confirm';
 import { formatWhen } from './format-time';
 import { JobSteps } from './job-steps';
@@ -32,9 +39,12 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
   const targetShopId = shopId ?? membership?.shopId ?? '';
   const targetMembership = memberships.find((m) => m.shopId === targetShopId) ?? null;
   const build = useBuild(targetShopId, buildId);
+  const overview = useBuildOverview(targetShopId, buildId);
+  const sculpts = useSculpts(targetShopId, buildId);
   const rename = useRenameBuild(targetShopId);
   const remove = useDeleteBuild(targetShopId);
   const [mode, setMode] = useState<'view' | 'rename' | 'delete'>('view');
+  const wide = useWideLayout();
 
   // On arrival the build's shop becomes the current shop; if the person later switches to another shop in the
   // navigation, this build is no longer in view, so go to that shop's list.
@@ -119,6 +129,48 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
           />
         </View>
       ) : null}
+      <View style={styles.goRow} role="group" accessibilityLabel="Build screens">
+        {can.rename ? <Button label="Upload a sculpt" onPress={() => router.push(buildHref(b, '/upload'))} compact /> : null}
+        <Button label="Studio" accessibilityLabel="Open the studio" tone="secondary" compact onPress={() => router.push(buildHref(b, '/studio'))} />
+        <Button label="Pieces" accessibilityLabel="Open the pieces" tone="secondary" compact onPress={() => router.push(buildHref(b, '/pieces'))} />
+        <Button label="Sheets & print" accessibilityLabel="Open sheets and print" tone="secondary" compact onPress={() => router.push(buildHref(b, '/sheets'))} />
+        <Button label="Bench view" accessibilityLabel="Open the bench view" tone="secondary" compact onPress={() => router.push(buildHref(b, '/bench'))} />
+      </View>
+      <Section title="Sculpt versions">
+        {sculpts.isPending ? <Loading label="Loading sculpt versions" /> : null}
+        {sculpts.error ? (
+          <Notice tone="error" title="The sculpt versions did not load">
+            {sculpts.error.message}
+          </Notice>
+        ) : null}
+        {sculpts.data && sculpts.data.length === 0 ? (
+          <Text variant="small">{can.rename ? 'No sculpt yet. Upload an OBJ, STL or PLY file to start.' : 'No sculpt uploaded yet.'}</Text>
+        ) : null}
+        {sculpts.data && sculpts.data.length > 0 ? <SculptVersions sculpts={sculpts.data} /> : null}
+      </Section>
+      {overview.isPending ? <Loading label="Loading pieces, sheets and progress" /> : null}
+      {overview.error ? (
+        <Notice tone="error" title="Pieces, sheets and progress did not load">
+          <Text>{overview.error.message}</Text>
+          <Button label="Try again" tone="secondary" compact onPress={() => overview.refetch()} style={styles.retry} />
+        </Notice>
+      ) : null}
+      {overview.data ? (
+        <View style={wide ? styles.grid : undefined}>
+          <View style={wide ? styles.gridCell : undefined}>
+            <PiecesSummary o={overview.data} href={buildHref(b, '/pieces')} />
+          </View>
+          <View style={wide ? styles.gridCell : undefined}>
+            <BenchSummary o={overview.data} href={buildHref(b, '/bench')} />
+          </View>
+          <View style={wide ? styles.gridCell : undefined}>
+            <SheetsSummary o={overview.data} href={buildHref(b, '/sheets')} />
+          </View>
+          <View style={wide ? styles.gridCell : undefined}>
+            <MembersList o={overview.data} />
+          </View>
+        </View>
+      ) : null}
       <JobSteps />
     </Screen>
   );
@@ -130,4 +182,8 @@ const styles = StyleSheet.create({
   dates: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg, rowGap: space.xxs, marginBottom: space.lg },
   actions: { flexDirection: 'row', gap: space.sm, marginBottom: space.xl },
   block: { marginBottom: space.xl },
+  goRow: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, marginBottom: space.xl },
+  retry: { alignSelf: 'flex-start', marginTop: space.sm },
+  grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
+  gridCell: { flexBasis: '47%', flexGrow: 1 },
 });

@@ -1,5 +1,5 @@
 /**
- * What happens to a build from here: the job's steps, told as text until each step has its screen.
+ * What happens to a build from here: the job's steps, with the shop-safety cautions.
  */
 import { StyleSheet, View } from 'react-native';
 import { Card } from '../ui/card';
@@ -35,10 +35,10 @@ export function JobSteps() {
   return (
     <Card>
       <Text variant="heading" heading={2} style={styles.title}>
-        What comes next
+        From sculpt to foam
       </Text>
       <Text variant="small" style={styles.lead}>
-        These steps arrive in Sheetsmith one by one; here is the road from sculpt to foam.
+        The road from sculpt to foam, step by step.
       </Text>
       <View role="list">
         {steps.map((s, i) => (

@@ -189,7 +189,7 @@ describe.skipIf(!haveDist)(
 
           await list.getByRole('link', { name: 'Ridge helmet, second fit', exact: true }).click();
           await page.getByRole('heading', { name: 'Ridge helmet, second fit', level: 1 }).waitFor();
-          await page.getByRole('heading', { name: 'What comes next' }).waitFor();
+          await page.getByRole('heading', { name: 'From sculpt to foam' }).waitFor();
           await page.getByText('safety data sheet').waitFor();
           await shot('5-build-page');
 
