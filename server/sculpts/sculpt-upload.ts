@@ -18,7 +18,8 @@ export interface UploadedModel {
   fields: Record<string, string>;
 }
 
-const mb = (n: number) => `${Math.round((n / (1024 * 1024)) * 10) / 10} MB`;
+/** A size for people: megabytes from 1 MB up, bytes below. */
+const mb = (n: number) => (n >= 1024 * 1024 ? `${Math.round((n / (1024 * 1024)) * 10) / 10} MB` : `${n}-byte`);
 
 /**
  * Returns the client's file name for display: the part after the last "/" or "\" with control characters
@@ -87,7 +88,7 @@ export async function readModelUpload(req: Request, res: Response, maxBytes: num
   } catch (err) {
     if (err instanceof multer.MulterError) {
       if (err.code === 'LIMIT_FILE_SIZE') {
-        throw new AppError('FILE_TOO_LARGE', 413, `The file is larger than the ${mb(maxBytes)} limit for a sculpt; reduce the model or export it in a binary format`, { file: `larger than ${mb(maxBytes)}` });
+        throw new AppError('FILE_TOO_LARGE', 413, `The file is larger than the ${mb(maxBytes)} limit for a sculpt; reduce the model or export it in a binary format`, { file: `over the ${mb(maxBytes)} limit` });
       }
       if (err.code === 'LIMIT_UNEXPECTED_FILE') {
         throw new AppError('BAD_UPLOAD', 400, `Send one model file in the form field "file" (got a file in "${err.field ?? '?'}")`, { file: 'one file, in the field "file"' });
