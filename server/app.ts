@@ -29,6 +29,13 @@ import { shopRoutes } from './shops/router';
 import { SEAMS_BODY_LIMIT, SEAMS_PATH, sculptRoutes } from './sculpts/router';
 import type { FileStore } from './storage/file-store';
 import { createFileStore } from './storage/create-file-store';
+import { downloadRoutes } from './downloads/router';
+import type { Mailer } from './mail/send-mail';
+import { orderRoutes } from './orders/router';
+import { PACK_COVER_JSON_LIMIT, PACK_COVER_PATH } from './packs/cover-upload';
+import { packRoutes } from './packs/router';
+import { createPaymentGateway, type PaymentGateway } from './pay/payment-gateway';
+import { payRoutes, WEBHOOK_BODY_LIMIT, WEBHOOK_PATH } from './pay/router';
 
 export interface AppDeps {
   env: Env;
@@ -48,6 +55,10 @@ export interface AppDeps {
   jobs?: JobSender;
   /** Where stored files are kept; defaults to the store the settings name (STORAGE, server/storage/create-file-store.ts). */
   files?: FileStore;
+  /** Sends e-mail (receipts, pack published); without it those mails are logged as not sent. */
+  mailer?: Mailer;
+  /** The payment provider; defaults to its SDK on PAY_API_URL; null turns paid checkout and refunds off (503). */
+  payments?: PaymentGateway | null;
 }
 
 /** Returns every API route of the server (used to mount them and by the tests that walk the access table). */
@@ -66,6 +77,25 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
     ...auditRoutes(deps.db),
     ...adminRoutes(deps.db),
     ...sculptRoutes({ db: deps.db, files, jobs: deps.jobs ?? null, maxUploadBytes: deps.env.SCULPT_MAX_UPLOAD_BYTES }),
+    ...commerceRoutes(deps, files),
+  ];
+}
+
+/** Returns the pattern-pack, order, webhook and download routes with their shared settings. */
+function commerceRoutes(deps: AppDeps, files: FileStore): MountableRoute[] {
+  const payments = deps.payments === undefined ? createPaymentGateway(deps.env) : deps.payments;
+  const mailer = deps.mailer ?? null;
+  const logger = deps.logger ?? createLogger(deps.env.LOG_LEVEL, 'api');
+  const settings = {
+    publicUrl: (deps.env.PUBLIC_URL ?? `http://${deps.env.HOST}:${deps.env.PORT}`).replace(/\/+$/, ''),
+    linkHours: deps.env.DOWNLOAD_LINK_HOURS,
+    linkMaxUses: deps.env.DOWNLOAD_LINK_MAX_USES,
+  };
+  return [
+    ...packRoutes({ db: deps.db, files, mailer, payments, settings, logger }),
+    ...orderRoutes({ db: deps.db, payments }),
+    ...payRoutes({ db: deps.db, payments, mailer, settings, logger }),
+    ...downloadRoutes({ db: deps.db, files }),
   ];
 }
 
@@ -124,6 +154,10 @@ export function createApp(deps: AppDeps): Express {
   // marks it read, so the general one below skips these requests.
   app.post(PRINT_SETS_PATH, express.json({ limit: PRINT_SET_BODY_LIMIT }));
   app.put(SEAMS_PATH, express.json({ limit: SEAMS_BODY_LIMIT }));
+  // The payment webhook's signature covers the exact bytes sent, so that body stays raw; a cover image may come
+  // as a data URL of up to 5 MB.
+  app.post(WEBHOOK_PATH, express.raw({ type: () => true, limit: WEBHOOK_BODY_LIMIT }));
+  app.put(PACK_COVER_PATH, express.json({ limit: PACK_COVER_JSON_LIMIT }));
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 

@@ -55,6 +55,15 @@ const envSchema = z
     PASSWORD_RESET_RATE_LIMIT_IP: z.coerce.number().int().min(1).default(10),
     PASSWORD_RESET_RATE_LIMIT_EMAIL: z.coerce.number().int().min(1).default(3),
     PASSWORD_RESET_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(60),
+    /** Payment API base URL (the provider's SDK is pointed here); locally the fake of server/dev/payment-fake.ts. */
+    PAY_API_URL: z.string().url('must be a URL such as http://127.0.0.1:8473').default('http://127.0.0.1:8473'),
+    /** Secret API key for the payment API; the local default matches the fake started by the start command. */
+    PAY_API_KEY: z.string().min(8, 'must be at least 8 characters').default('local-pay-key-for-development'),
+    /** Secret that signs the payment webhook's events (checked with the SDK's constructEvent). */
+    PAY_WEBHOOK_SECRET: z.string().min(16, 'must be at least 16 characters').default('local-webhook-secret-for-development'),
+    /** How long a pack's download link works, in hours, and how many file downloads it allows. */
+    DOWNLOAD_LINK_HOURS: z.coerce.number().positive().default(24),
+    DOWNLOAD_LINK_MAX_USES: z.coerce.number().int().min(1).default(5),
     /** Largest sculpt upload in bytes (DESIGN.md "Sculpt in": 200 MB); tests set a small one. */
     SCULPT_MAX_UPLOAD_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),
   })

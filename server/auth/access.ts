@@ -48,6 +48,20 @@ export const ROUTE_ACCESS: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId/mesh', access: { shopRole: 'viewer' } },
   { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId/seams', access: { shopRole: 'viewer' } },
   { method: 'PUT', path: '/api/shops/:shopId/builds/:buildId/sculpts/:sculptId/seams', access: { shopRole: 'editor' } },
+  { method: 'POST', path: '/api/shops/:shopId/packs', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/shops/:shopId/packs', access: { shopRole: 'viewer' } },
+  { method: 'PATCH', path: '/api/shops/:shopId/packs/:packId', access: { shopRole: 'owner' } },
+  { method: 'PUT', path: '/api/shops/:shopId/packs/:packId/cover', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/shops/:shopId/packs/:packId/cover', access: { shopRole: 'viewer' } },
+  { method: 'GET', path: '/api/packs', access: 'public' },
+  { method: 'GET', path: '/api/packs/:slug', access: 'public' },
+  { method: 'GET', path: '/api/packs/:slug/cover', access: 'public' },
+  { method: 'POST', path: '/api/packs/:slug/checkout', access: 'public' },
+  { method: 'POST', path: '/api/pay/webhook', access: 'public' },
+  { method: 'GET', path: '/api/shops/:shopId/orders', access: { shopRole: 'owner' } },
+  { method: 'POST', path: '/api/shops/:shopId/orders/:orderId/refund', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/downloads/:token', access: 'public' },
+  { method: 'GET', path: '/api/downloads/:token/files/:name', access: 'public' },
 ];
 
 const ROLE_RANK: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };
