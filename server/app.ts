@@ -23,6 +23,7 @@ import { mountRoutes, type MountableRoute } from './http/define-route';
 import { healthRoutes } from './http/health';
 import { webAppRouter } from './http/web-app';
 import { createLogger } from './logger';
+import type { JobAdmin } from './jobs/job-admin';
 import type { JobSender } from './jobs/job-sender';
 import { PRINT_SET_BODY_LIMIT, PRINT_SETS_PATH, printSetRoutes } from './print-sets/router';
 import { shopRoutes } from './shops/router';
@@ -55,6 +56,8 @@ export interface AppDeps {
   jobs?: JobSender;
   /** Where stored files are kept; defaults to the store the settings name (STORAGE, server/storage/create-file-store.ts). */
   files?: FileStore;
+  /** Lets site admins retry failed jobs; without it the retry route answers 503 QUEUE_UNAVAILABLE. */
+  jobAdmin?: JobAdmin;
   /** Sends e-mail (receipts, pack published); without it those mails are logged as not sent. */
   mailer?: Mailer;
   /** The payment provider; defaults to its SDK on PAY_API_URL; null turns paid checkout and refunds off (503). */
@@ -75,7 +78,7 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
     ...buildRoutes({ db: deps.db, files }),
     ...printSetRoutes({ db: deps.db, files, jobs: deps.jobs ?? null }),
     ...auditRoutes(deps.db),
-    ...adminRoutes(deps.db),
+    ...adminRoutes({ db: deps.db, pool: deps.pool, env: deps.env, jobAdmin: deps.jobAdmin ?? null }),
     ...sculptRoutes({ db: deps.db, files, jobs: deps.jobs ?? null, maxUploadBytes: deps.env.SCULPT_MAX_UPLOAD_BYTES }),
     ...commerceRoutes(deps, files),
   ];

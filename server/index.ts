@@ -8,6 +8,7 @@ import { runMigrations } from '../db/migrate';
 import { createApp } from './app';
 import { loadOrCreateSessionSecret } from './auth/session-secret';
 import { parseEnv } from './env';
+import { pgBossJobAdmin } from './jobs/job-admin';
 import { pgBossJobSender } from './jobs/job-sender';
 import { startQueue, stopQueue } from './jobs/queue';
 import { createLogger } from './logger';
@@ -21,7 +22,7 @@ async function main(): Promise<void> {
   const sessionSecret = loadOrCreateSessionSecret(env.SESSION_SECRET, path.join(process.cwd(), '.data', 'session-secret'));
   // The API only sends jobs: no maintenance or cron here (server/worker.ts does those).
   const boss = await startQueue(env.DATABASE_URL, logger, { supervise: false, schedule: false });
-  const app = createApp({ env, pool, db: createDb(pool), sessionSecret, logger, jobs: pgBossJobSender(boss), files: createFileStore(env) });
+  const app = createApp({ env, pool, db: createDb(pool), sessionSecret, logger, jobs: pgBossJobSender(boss), files: createFileStore(env), jobAdmin: pgBossJobAdmin(boss) });
 
   const server = app.listen(env.PORT, env.HOST, () => {
     logger.info({ url: `http://${env.HOST}:${env.PORT}` }, 'Sheetsmith API listening');
