@@ -167,7 +167,7 @@ describe.skipIf(!haveDist)(
 
           await page.getByLabel('Build name').fill('Ridge helmet');
           await page.getByRole('button', { name: 'Start build' }).click();
-          const list = page.getByRole('list', { name: 'Builds' });
+          const list = page.getByRole(vp.wide ? 'table' : 'list', { name: 'Builds' });
           await list.getByRole('link', { name: 'Ridge helmet', exact: true }).waitFor();
           await page.getByLabel('Build name').fill('Left pauldron');
           await page.getByRole('button', { name: 'Start build' }).click();
