@@ -8,6 +8,9 @@ import { pruneRateLimitHits } from '../auth/rate-limit-store';
 import { PRINT_SET_JOB, PRINT_SET_QUEUE, runPrintSetJob } from '../print-sets/print-set-job';
 import { failStalePrintSets, STALE_PRINT_SETS_JOB } from '../print-sets/stale-print-sets';
 import { runSculptJob, SCULPT_JOB, SCULPT_QUEUE } from '../sculpts/sculpt-job';
+import { runPatternJob } from '../patterns/pattern-job';
+import { PATTERN_JOB, PATTERN_QUEUE, SHEET_PLAN_JOB, SHEET_PLAN_QUEUE } from '../patterns/pattern-job-name';
+import { runSheetPlanJob } from '../sheet-plans/sheet-plan-job';
 import type { FileStore } from '../storage/file-store';
 import type { JobSender } from './job-sender';
 
@@ -50,5 +53,15 @@ export const JOB_TYPES: readonly JobType[] = [
     name: SCULPT_JOB,
     queue: SCULPT_QUEUE,
     run: (context, data) => runSculptJob(context, data),
+  },
+  {
+    name: PATTERN_JOB,
+    queue: PATTERN_QUEUE,
+    run: (context, data) => runPatternJob(context, data),
+  },
+  {
+    name: SHEET_PLAN_JOB,
+    queue: SHEET_PLAN_QUEUE,
+    run: (context, data) => runSheetPlanJob(context, data),
   },
 ];
