@@ -28,6 +28,11 @@ import type { JobSender } from './jobs/job-sender';
 import { PRINT_SET_BODY_LIMIT, PRINT_SETS_PATH, printSetRoutes } from './print-sets/router';
 import { shopRoutes } from './shops/router';
 import { SEAMS_BODY_LIMIT, SEAMS_PATH, sculptRoutes } from './sculpts/router';
+import { patternRoutes } from './patterns/router';
+import { pieceRoutes } from './pieces/router';
+import { stockRoutes } from './stock/router';
+import { sheetPlanRoutes } from './sheet-plans/router';
+import { benchRoutes } from './bench/router';
 import type { FileStore } from './storage/file-store';
 import { createFileStore } from './storage/create-file-store';
 import { downloadRoutes } from './downloads/router';
@@ -80,6 +85,11 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
     ...auditRoutes(deps.db),
     ...adminRoutes({ db: deps.db, pool: deps.pool, env: deps.env, jobAdmin: deps.jobAdmin ?? null }),
     ...sculptRoutes({ db: deps.db, files, jobs: deps.jobs ?? null, maxUploadBytes: deps.env.SCULPT_MAX_UPLOAD_BYTES }),
+    ...patternRoutes({ db: deps.db, files, jobs: deps.jobs ?? null }),
+    ...pieceRoutes({ db: deps.db, jobs: deps.jobs ?? null }),
+    ...stockRoutes(deps.db),
+    ...sheetPlanRoutes({ db: deps.db, jobs: deps.jobs ?? null }),
+    ...benchRoutes(deps.db),
     ...commerceRoutes(deps, files),
   ];
 }
