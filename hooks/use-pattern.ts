@@ -154,3 +154,27 @@ export function usePatternFaces(url: string | null) {
     },
   });
 }
+
+/** The engine's stretch budget when a seam set names none, percent (geometry/pattern/build-pattern.ts default). */
+export const DEFAULT_STRETCH_BUDGET_PCT = 3;
+
+/**
+ * The stretch budget of the sculpt's seam set (GET .../sculpts/:sculptId/seams, `stretchBudgetPct`), which decides
+ * when a piece is "over budget". Until it loads, or when the seam set cannot be read, the engine's default 3 %.
+ */
+export function useStretchBudget(shopId: string, buildId: string, sculptId: string | null): number {
+  const seams = useQuery({
+    queryKey: ['shops', shopId, 'builds', buildId, 'sculpts', sculptId ?? '', 'seams'],
+    enabled: sculptId !== null,
+    retry: false,
+    queryFn: async () =>
+      (
+        await apiRequest(
+          'GET',
+          `${buildApiPath(shopId, buildId)}/sculpts/${encodeURIComponent(sculptId!)}/seams`,
+          z.object({ seams: z.object({ stretchBudgetPct: z.number().positive() }) }),
+        )
+      ).seams.stretchBudgetPct,
+  });
+  return seams.data ?? DEFAULT_STRETCH_BUDGET_PCT;
+}
