@@ -73,7 +73,6 @@ export function BuildRow({ build, can, wide }: { build: BuildListItem; can: Buil
         <View style={styles.cells}>
           <View role="cell" style={styles.nameCell}>
             {mode === 'rename' ? null : name}
-            {actions}
           </View>
           <Text role="cell" variant="mono" style={{ width: tableColumns.updated }}>
             {formatWhen(build.updatedAt)}
@@ -92,6 +91,7 @@ export function BuildRow({ build, can, wide }: { build: BuildListItem; can: Buil
             <StageBadge stage={s.stage} />
           </View>
         </View>
+        {actions ? <View style={styles.rowActions}>{actions}</View> : null}
         {forms}
       </View>
     );
@@ -134,6 +134,7 @@ const styles = StyleSheet.create({
   progressCell: { gap: space.xxs },
   name: { fontFamily: fonts.bodyStrong, fontSize: 17, lineHeight: 24, color: palette.ink, textDecorationLine: 'underline', textDecorationColor: palette.ruleStrong },
   actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+  rowActions: { marginTop: space.xs },
   card: { paddingVertical: space.md, borderTopWidth: 1, borderTopColor: palette.rule, gap: space.sm },
   cardHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
   cardTitle: { flexShrink: 1 },

@@ -50,7 +50,7 @@ export function SculptVersion({ sculpt, newest }: { sculpt: Sculpt; newest: bool
         </View>
       ) : null}
       {r && r.warnings.length > 0 ? (
-        <Notice tone="caution" title="From the clean-up">
+        <Notice tone="note" title="From the clean-up">
           {r.warnings.map((w, i) => (
             <Text key={i}>{w}</Text>
           ))}
