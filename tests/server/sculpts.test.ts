@@ -182,6 +182,19 @@ describe('upload and processing', () => {
     expect(again.body.sculpt.status).toBe('failed');
   });
 
+  it('reduces a mesh above the target triangle count and keeps it closed', async () => {
+    const b = await insertBuild(ctx.db, fx.shopId, 'Dense scan');
+    // 20·4⁴ = 5120 triangles in, asked for 1000.
+    const sculpt = await uploadAndProcess(objBytes(icoSphere(70, 4)), 'dense.obj', { targetTriangles: '1000' }, b);
+    expect(sculpt).toMatchObject({ status: 'done', targetTriangles: 1000 });
+    expect(sculpt.report.sourceTriangles).toBe(5120);
+    expect(sculpt.report.workingTriangles).toBeLessThanOrEqual(1000);
+    expect(sculpt.report.workingTriangles).toBeGreaterThan(500);
+    const { mesh } = await downloadMesh(sculpt.meshUrl);
+    // A closed triangulated sphere: V − E + F = 2 with E = 3F/2 (Euler), so V = F/2 + 2.
+    expect(mesh.positions.length / 3).toBe(mesh.triangles.length / 6 + 2);
+  });
+
   it('scales to a head circumference so that the working mesh measures it round its middle', async () => {
     const b = await insertBuild(ctx.db, fx.shopId, 'Round helm');
     const sculpt = await uploadAndProcess(objBytes(icoSphere(90, 3)), 'round.obj', { headCircumferenceMm: '580' }, b);
