@@ -66,6 +66,30 @@ function fromBodyParser(err: unknown): AppError | null {
   return null;
 }
 
+/** Node socket errors that mean the database cannot be reached (connection refused, dropped or timed out). */
+const UNREACHABLE_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EHOSTUNREACH', 'ENOTFOUND', 'EPIPE']);
+
+/**
+ * Returns whether `err` (or an error it wraps, e.g. a Drizzle query error's `cause`) says PostgreSQL is down or
+ * going away rather than that the query was wrong: a socket error, SQLSTATE class 08 (connection exception),
+ * 57P01–57P03 (shutdown, crash, cannot connect now; PostgreSQL manual, appendix A), or node-postgres's own
+ * "Connection terminated" and connect-timeout messages.
+ */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  for (let e = err, depth = 0; e && depth < 5; e = (e as { cause?: unknown }).cause, depth++) {
+    const code = (e as { code?: unknown }).code;
+    if (typeof code === 'string' && (UNREACHABLE_CODES.has(code) || code.startsWith('08') || ['57P01', '57P02', '57P03'].includes(code))) return true;
+    const message = (e as { message?: unknown }).message;
+    if (typeof message === 'string' && /^Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error/.test(message)) return true;
+  }
+  return false;
+}
+
+function fromDatabaseOutage(err: unknown): AppError | null {
+  if (!isDatabaseUnavailable(err)) return null;
+  return new AppError('DATABASE_UNAVAILABLE', 503, 'The database cannot be reached right now; try again in a moment');
+}
+
 /**
  * Returns the Express error handler. Known failures keep their code and status; anything else is logged
  * with its stack and answered as a plain 500 INTERNAL.
@@ -77,9 +101,13 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     const known =
-      err instanceof AppError ? err : err instanceof ZodError ? validationError(err, 'body') : fromBodyParser(err);
+      err instanceof AppError ? err : err instanceof ZodError ? validationError(err, 'body') : (fromBodyParser(err) ?? fromDatabaseOutage(err));
     const appError = known ?? new AppError('INTERNAL', 500, 'Something went wrong on the server; it has been logged');
     if (!known) logger.error({ err, method: req.method, url: req.originalUrl }, 'unhandled error');
+    if (known?.code === 'DATABASE_UNAVAILABLE') {
+      logger.warn({ err: { message: (err as Error).message, code: (err as { code?: unknown }).code }, method: req.method, url: req.originalUrl }, 'database unavailable');
+      res.setHeader('Retry-After', '5');
+    }
     res.status(appError.status).json({
       error: {
         code: appError.code,

@@ -18,6 +18,8 @@ async function main(): Promise<void> {
   const env = parseEnv(process.env);
   const logger = createLogger(env.LOG_LEVEL, 'api');
   const pool = createPool(env.DATABASE_URL);
+  // An idle connection dropped by a database restart is reported here; without a listener it would end the process.
+  pool.on('error', (err) => logger.warn({ err: err.message }, 'idle database connection lost'));
   await runMigrations(pool);
   const sessionSecret = loadOrCreateSessionSecret(env.SESSION_SECRET, path.join(process.cwd(), '.data', 'session-secret'));
   // The API only sends jobs: no maintenance or cron here (server/worker.ts does those).

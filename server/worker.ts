@@ -17,6 +17,8 @@ async function main(): Promise<void> {
   const env = parseEnv(process.env);
   const logger = createLogger(env.LOG_LEVEL, 'worker');
   const pool = createPool(env.DATABASE_URL, 4);
+  // An idle connection dropped by a database restart is reported here; without a listener it would end the process.
+  pool.on('error', (err) => logger.warn({ err: err.message }, 'idle database connection lost'));
   await runMigrations(pool);
   const boss = await startQueue(env.DATABASE_URL, logger, { supervise: true, schedule: true, maintenanceIntervalSeconds: env.JOB_MAINTENANCE_SECONDS });
   const context = { db: createDb(pool), files: createFileStore(env) };
