@@ -47,11 +47,11 @@ export function useSheetPlans(shopId: string, buildId: string) {
   });
 }
 
-/** POST .../sheet-plans `{ patternId, gapMm?, spares? }` → the queued plan, put at the head of the list. */
+/** POST .../sheet-plans `{ patternId, gapMm?, spares?, sparesFor? }` (db/validation-bench.ts sheetPlanCreateBody) → the queued plan, put at the head of the list. */
 export function useCreateSheetPlan(shopId: string, buildId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: async (body: { patternId: string; gapMm?: number; spares?: number }) =>
+    mutationFn: async (body: { patternId: string; gapMm?: number; spares?: number; sparesFor?: 'repeated' | 'all' }) =>
       (await apiRequest('POST', plansPath(shopId, buildId), z.object({ sheetPlan: sheetPlanViewSchema }), body)).sheetPlan,
     onSuccess: (plan) => {
       qc.setQueryData<SheetPlanView[]>(sheetPlansQueryKey(shopId, buildId), (old) => [plan, ...(old ?? []).filter((p) => p.id !== plan.id)]);

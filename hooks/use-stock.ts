@@ -3,6 +3,7 @@
  */
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
+import type { StockReplaceBody } from '../db/validation-bench';
 import { ApiError, apiErrorFromResponse, apiRequest } from './api-client';
 
 export const stockSheetSchema = z.object({
@@ -16,29 +17,6 @@ export const stockSheetSchema = z.object({
 export type StockSheet = z.infer<typeof stockSheetSchema>;
 
 const stockListSchema = z.object({ stock: z.array(stockSheetSchema.passthrough()) });
-
-/** Largest sheet side accepted, mm: 5 m, beyond any roll sold for props (common practice); a bigger number is a typo. */
-export const MAX_SHEET_SIDE_MM = 5_000;
-
-/**
- * The stock form's rules, one sheet: thickness over 0 and at most 100 mm (the engine's piece limit), a name, sides
- * from 50 mm to MAX_SHEET_SIDE_MM, a price of 0 or more, and a three-letter currency code (ISO 4217 form).
- */
-export const stockSheetInput = z.object({
-  thicknessMm: z.number({ error: 'thickness must be a number of millimetres' }).gt(0, 'thickness must be more than 0 mm').max(100, 'thickness must be at most 100 mm'),
-  name: z.string().trim().min(1, 'give the sheet a name, e.g. "6 mm roll 1 m × 2 m"').max(80, 'keep the name under 80 characters'),
-  widthMm: z.number({ error: 'width must be a number of millimetres' }).min(50, 'width must be at least 50 mm').max(MAX_SHEET_SIDE_MM, `width must be at most ${MAX_SHEET_SIDE_MM} mm`),
-  heightMm: z.number({ error: 'height must be a number of millimetres' }).min(50, 'height must be at least 50 mm').max(MAX_SHEET_SIDE_MM, `height must be at most ${MAX_SHEET_SIDE_MM} mm`),
-  price: z.number({ error: 'price must be a number' }).min(0, 'price cannot be negative'),
-  currency: z.string().trim().regex(/^[A-Z]{3}$/, 'currency must be a three-letter code such as EUR or USD'),
-});
-export const stockInput = z
-  .object({ sheets: z.array(stockSheetInput).max(50, 'keep the list under 50 sheets') })
-  .refine((s) => new Set(s.sheets.map((x) => x.thicknessMm)).size === s.sheets.length, {
-    message: 'list each thickness once: the planner buys one kind of sheet per thickness',
-    path: ['sheets'],
-  });
-export type StockInput = z.infer<typeof stockInput>;
 
 export const stockQueryKey = (shopId: string) => ['shops', shopId, 'stock'] as const;
 const stockPath = (shopId: string) => `/api/shops/${encodeURIComponent(shopId)}/stock`;
@@ -58,7 +36,7 @@ export function useStock(shopId: string) {
 export function useSaveStock(shopId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: async (body: StockInput) => {
+    mutationFn: async (body: StockReplaceBody) => {
       let res: Response;
       try {
         res = await fetch(stockPath(shopId), {
