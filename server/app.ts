@@ -11,6 +11,7 @@ import type { Pool } from 'pg';
 import type { Db } from '../db/client';
 import { adminRoutes } from './admin/router';
 import { auditRoutes } from './audit/router';
+import { crewRoutes } from './members/crew-routes';
 import { createAccessGuard } from './auth/guard';
 import { authRoutes } from './auth/router';
 import { sessionKey } from './auth/session';
@@ -57,6 +58,10 @@ export interface AppDeps {
    * all sign up from one loopback address and would otherwise share one count across test files).
    */
   signUpLimit?: SignUpLimitOptions | null;
+  /** Overrides the password-reset limits from the environment; null turns them off (API tests about other things). */
+  passwordResetLimit?: import('./password-reset/reset-limit').PasswordResetLimitOptions | null;
+  /** Sends e-mail (invitations, password resets); defaults to nodemailer on SMTP_URL. */
+  mailer?: import('./mail/send-mail').Mailer;
   /** Puts heavy work on the job queue; without it, routes that queue work answer 503 QUEUE_UNAVAILABLE. */
   jobs?: JobSender;
   /** Where stored files are kept; defaults to the store the settings name (STORAGE, server/storage/create-file-store.ts). */
@@ -78,6 +83,7 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
   const files = deps.files ?? createFileStore(deps.env);
   return [
     ...healthRoutes(deps.pool),
+    ...crewRoutes(deps),
     ...authRoutes({ db: deps.db, sessionKey: key, cookieSecure, signInLimit, signUpLimit }),
     ...shopRoutes(deps.db),
     ...buildRoutes({ db: deps.db, files }),

@@ -27,6 +27,17 @@ export const ROUTE_ACCESS: readonly RouteAccess[] = [
   { method: 'POST', path: '/api/auth/signin', access: 'public' },
   { method: 'POST', path: '/api/auth/signout', access: 'signedIn' },
   { method: 'GET', path: '/api/me', access: 'signedIn' },
+  { method: 'GET', path: '/api/shops/:shopId/members', access: { shopRole: 'viewer' } },
+  { method: 'PATCH', path: '/api/shops/:shopId/members/:userId', access: { shopRole: 'owner' } },
+  { method: 'DELETE', path: '/api/shops/:shopId/members/:userId', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/shops/:shopId/invitations', access: { shopRole: 'owner' } },
+  { method: 'POST', path: '/api/shops/:shopId/invitations', access: { shopRole: 'owner' } },
+  { method: 'DELETE', path: '/api/shops/:shopId/invitations/:invitationId', access: { shopRole: 'owner' } },
+  { method: 'POST', path: '/api/shops/:shopId/invitations/:invitationId/resend', access: { shopRole: 'owner' } },
+  { method: 'GET', path: '/api/invitations/:token', access: 'public' },
+  { method: 'POST', path: '/api/invitations/:token/accept', access: 'signedIn' },
+  { method: 'POST', path: '/api/auth/password-reset', access: 'public' },
+  { method: 'POST', path: '/api/auth/password-reset/confirm', access: 'public' },
   { method: 'POST', path: '/api/shops', access: 'signedIn' },
   { method: 'GET', path: '/api/shops/:shopId', access: { shopRole: 'viewer' } },
   { method: 'GET', path: '/api/shops/:shopId/builds', access: { shopRole: 'viewer' } },
@@ -121,4 +132,20 @@ export function decideAccess(rule: AccessRule, method: HttpMethod, caller: Calle
   if (caller.shopRole && roleAtLeast(caller.shopRole, rule.shopRole)) return 'allow';
   if (caller.isAdmin && method === 'GET') return 'allow';
   return 'forbidden';
+}
+
+/**
+ * Routes a viewer (a commission client) may call only when the shop's owner granted them print sets
+ * (memberships.canSeePrintSets); owners, editors and site admins are not affected. The guard enforces it and the
+ * access walk reads it, so the rule is written once.
+ */
+export const PRINT_SET_GRANT_ROUTES: readonly { method: HttpMethod; path: string }[] = [
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets' },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets/:printSetId' },
+  { method: 'GET', path: '/api/shops/:shopId/builds/:buildId/print-sets/:printSetId/files/:fileName' },
+];
+
+/** Returns whether a viewer needs the print-set grant for `method` on the route pattern `path`. */
+export function needsPrintSetGrant(method: HttpMethod, path: string | undefined): boolean {
+  return PRINT_SET_GRANT_ROUTES.some((r) => r.method === method && r.path === path);
 }

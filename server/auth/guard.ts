@@ -1,13 +1,15 @@
 /**
  * The access guard every route passes through: reads the session cookie, loads the person, finds their role
- * in the shop the route names, and applies the route's rule (server/auth/access.ts).
+ * in the shop the route names, and applies the route's rule (server/auth/access.ts), including the print-set
+ * grant a viewer needs on the routes PRINT_SET_GRANT_ROUTES lists.
  */
 import type { Request, Response } from 'express';
 import type { Db } from '../../db/client';
 import type { Role } from '../../db/validation';
 import { AppError } from '../errors';
 import type { AccessGuard, SessionUser } from '../http/define-route';
-import { decideAccess, type AccessRule, type HttpMethod } from './access';
+import { selectSeesPrintSets } from '../members/queries';
+import { decideAccess, needsPrintSetGrant, type AccessRule, type HttpMethod } from './access';
 import { selectMembershipRole, shopExists } from './queries';
 import { userForSession } from './service';
 import { SESSION_COOKIE, sessionCookieOptions, verifySessionToken } from './session';
@@ -68,6 +70,13 @@ export function createAccessGuard(deps: GuardDeps): AccessGuard {
     if (decision === 'unauthenticated') throw unauthenticated('Sign in to continue');
     if (decision === 'forbidden') {
       throw new AppError('FORBIDDEN', 403, forbiddenMessage(rule, shopRole));
+    }
+    // req.route is the matched route, whose path is the pattern the access table lists.
+    const routePath = (req.route as { path?: unknown } | undefined)?.path;
+    if (user && shopId && shopRole === 'viewer' && needsPrintSetGrant(method, typeof routePath === 'string' ? routePath : undefined)) {
+      if (!(await selectSeesPrintSets(deps.db, user.id, shopId))) {
+        throw new AppError('FORBIDDEN', 403, 'The shop owner has not shared print sets with you; ask them to allow it in the members list');
+      }
     }
     if (typeof rule === 'object' && shopId) {
       // Only a site admin reaches here without a membership; tell them plainly when the shop does not exist.

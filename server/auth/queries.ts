@@ -50,10 +50,18 @@ export async function insertMembership(db: DbExecutor, userId: string, shopId: s
   await db.insert(memberships).values({ userId, shopId, role });
 }
 
-/** Returns the user's memberships with shop names, ordered by shop name. */
+/**
+ * Returns the user's memberships with shop names, ordered by shop name; `canSeePrintSets` is true for owners
+ * and editors, and for viewers the owner granted print sets to.
+ */
 export function selectMembershipsOfUser(db: DbExecutor, userId: string) {
   return db
-    .select({ shopId: memberships.shopId, shopName: shops.name, role: memberships.role })
+    .select({
+      shopId: memberships.shopId,
+      shopName: shops.name,
+      role: memberships.role,
+      canSeePrintSets: sql<boolean>`(${memberships.role} <> 'viewer' OR ${memberships.canSeePrintSets})`,
+    })
     .from(memberships)
     .innerJoin(shops, eq(shops.id, memberships.shopId))
     .where(eq(memberships.userId, userId))

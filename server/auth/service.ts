@@ -20,6 +20,8 @@ export interface MembershipView {
   shopId: string;
   shopName: string;
   role: 'owner' | 'editor' | 'viewer';
+  /** Whether print sets are visible: owners and editors always, viewers when the owner granted it. */
+  canSeePrintSets: boolean;
 }
 
 export interface Profile {
@@ -64,7 +66,7 @@ export async function signUp(db: Db, input: SignUpBody): Promise<SignedIn> {
     await insertMembership(tx, user.id, shop.id, 'owner');
     await recordAudit(tx, { shopId: shop.id, userId: user.id, action: 'user.signup', target: `user:${user.id}`, detail: { email: user.email, shopName: shop.name } });
     return {
-      profile: { user, memberships: [{ shopId: shop.id, shopName: shop.name, role: 'owner' as const }] },
+      profile: { user, memberships: [{ shopId: shop.id, shopName: shop.name, role: 'owner' as const, canSeePrintSets: true }] },
       session: { userId: user.id, generation: sessionGeneration },
     };
   });
