@@ -3,7 +3,9 @@
  * in one transaction and then queues the render job, so a worker never looks for a row that is not committed.
  * Files are served only when listed on a finished print set.
  */
-import type { Db } from '../../db/client';
+import type { Db, DbExecutor } from '../../db/client';
+import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
+import { selectPattern } from '../patterns/queries';
 import { recordAudit } from '../audit/service';
 import { selectBuild } from '../builds/queries';
 import { AppError, notFound } from '../errors';
@@ -53,7 +55,7 @@ function toView(row: PrintSetRow): PrintSetView {
 }
 
 /**
- * Records a print set of `body.pattern` for the build and queues its render. Returns the queued print set.
+ * Records a print set of `body.pattern` (or of the build's finished pattern `body.patternId`) and queues its render. Returns the queued print set.
  * Throws 404 NOT_FOUND when the shop has no such build, 503 QUEUE_UNAVAILABLE when the job cannot be queued
  * (the print set is then marked failed, so it does not sit in `queued` for ever).
  */
@@ -61,22 +63,23 @@ export async function createPrintSet(db: Db, jobs: JobSender | null, user: Sessi
   const row = await db.transaction(async (tx) => {
     const build = await selectBuild(tx, shopId, buildId);
     if (!build) throw notFound('Build');
+    const pattern = body.pattern ?? (await storedPatternDoc(tx, shopId, buildId, body.patternId!));
     const inserted = await insertPrintSet(tx, {
       shopId,
       buildId,
       createdBy: user.id,
-      name: body.pattern.name ?? build.name,
+      name: pattern.name ?? build.name,
       formats: body.formats,
       page: body.page,
       mode: body.mode,
-      pattern: body.pattern,
+      pattern,
     });
     await recordAudit(tx, {
       shopId,
       userId: user.id,
       action: 'print-set.create',
       target: `print-set:${inserted.id}`,
-      detail: { build: build.name, formats: body.formats, page: body.page, mode: body.mode, pieces: body.pattern.pieces.length },
+      detail: { build: build.name, formats: body.formats, page: body.page, mode: body.mode, pieces: pattern.pieces.length, ...(body.patternId ? { patternId: body.patternId } : {}) },
     });
     return inserted;
   });
@@ -92,6 +95,19 @@ export async function createPrintSet(db: Db, jobs: JobSender | null, user: Sessi
     throw new AppError('QUEUE_UNAVAILABLE', 503, unavailable);
   }
   return toView(row);
+}
+
+/**
+ * Returns the document of the build's pattern `patternId`. Throws 404 NOT_FOUND (field patternId) when the build
+ * has no such pattern, 409 NOT_READY when it is not finished.
+ */
+async function storedPatternDoc(db: DbExecutor, shopId: string, buildId: string, patternId: string): Promise<PatternDoc> {
+  const row = await selectPattern(db, shopId, buildId, patternId);
+  if (!row) throw new AppError('NOT_FOUND', 404, 'Pattern was not found in this build', { patternId: 'must be the id of one of the build’s patterns' });
+  if (row.status !== 'done' || !row.doc) {
+    throw new AppError('NOT_READY', 409, `The pattern is ${row.status}; a print set can be made from a finished pattern`, { patternId: `the pattern is ${row.status}` });
+  }
+  return row.doc;
 }
 
 /** Returns the build's print sets, newest first; throws 404 NOT_FOUND when the shop has no such build. */
