@@ -3,6 +3,8 @@
 #   ensure_node_deps     npm ci when node_modules is missing or was installed from another package-lock.json
 #   ensure_web_build     expo web export into dist/ when the app's sources changed since the last build
 #   ensure_session_secret  SESSION_SECRET from the environment or .data/session-secret (made once)
+#   ensure_local_secrets   PAY_API_KEY and PAY_WEBHOOK_SECRET for the local payment fake, from the environment
+#                          or .data/ (made once), shared by the fake, the API and the worker
 
 setup_log() { echo "setup: $*" >&2; }
 
@@ -34,6 +36,10 @@ web_sources_digest() {
 # Builds dist/ when stale. On a failed build the old dist/ (if any) stays and the server keeps serving it, or
 # answers "web app not built"; the log says why.
 ensure_web_build() {
+  if [ "${SHEETSMITH_SKIP_WEB_BUILD:-}" = 1 ]; then
+    setup_log "SHEETSMITH_SKIP_WEB_BUILD=1: leaving dist/ as it is"
+    return 0
+  fi
   if [ ! -f app/_layout.tsx ] && [ ! -f app/_layout.jsx ]; then
     setup_log "no app/_layout.tsx yet: skipping the web build (the server answers 503 'web app not built')"
     return 0
@@ -61,4 +67,20 @@ ensure_session_secret() {
   fi
   SESSION_SECRET=$(tr -d '\n' < .data/session-secret)
   export SESSION_SECRET
+}
+
+# Prints the content of .data/<name>, making it first from 48 random bytes when missing (readable by us only).
+local_secret() {
+  local file=".data/$1"
+  if [ ! -s "$file" ]; then
+    mkdir -p .data
+    (umask 077 && head -c 48 /dev/urandom | base64 | tr -d '\n=' | tr '+/' '-_' > "$file" && echo >> "$file")
+  fi
+  tr -d '\n' < "$file"
+}
+
+ensure_local_secrets() {
+  PAY_API_KEY="${PAY_API_KEY:-$(local_secret pay-api-key)}"
+  PAY_WEBHOOK_SECRET="${PAY_WEBHOOK_SECRET:-$(local_secret pay-webhook-secret)}"
+  export PAY_API_KEY PAY_WEBHOOK_SECRET
 }

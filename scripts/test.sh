@@ -16,6 +16,13 @@ if ! flock -n 8; then
 fi
 
 ensure_node_deps
+# The tests start their own mail catcher, payment fake and s3rver in-process on random loopback ports; these
+# are the packages they need (a partial install would otherwise show up as many confusing failures).
+node -e "
+  const need = ['smtp-server', 'mailparser', 'nodemailer', 'stripe', 's3rver', '@aws-sdk/client-s3', 'pg-boss', 'supertest'];
+  const missing = need.filter((m) => { try { require.resolve(m); return false; } catch { return true; } });
+  if (missing.length) { console.error('test: missing npm packages ' + missing.join(', ') + '; run npm ci'); process.exit(1); }
+"
 # The cluster outlives this run: it must not inherit the run lock (fd 8), or the next run waits forever.
 bash scripts/postgres.sh 8>&-
 PG_BIN=$(pg_find_bin)
