@@ -2,7 +2,7 @@
  * Drizzle queries for patterns, their sculpt and seams, and the build's piece settings. Reads are scoped to a
  * shop and build so one shop's id never reaches another's pattern.
  */
-import { and, desc, eq, gt, inArray, sql } from 'drizzle-orm';
+import { and, desc, eq, gt, inArray, ne, sql } from 'drizzle-orm';
 import type { DbExecutor } from '../../db/client';
 import { buildPieces } from '../../db/schema-bench';
 import { patterns, sculpts, seamSets, type SeamLine } from '../../db/schema-sculpts';
@@ -112,12 +112,21 @@ export async function claimPattern(db: DbExecutor, id: string): Promise<PatternR
   return rows[0] ?? null;
 }
 
-/** Whether a pattern of the same sculpt was queued after `row` (a newer seam or settings save). */
-export async function hasNewerPattern(db: DbExecutor, row: { id: string; sculptId: string; createdAt: Date }): Promise<boolean> {
+/**
+ * Whether a pattern of the same sculpt was queued after `row` (a newer seam or settings save). Compared in SQL,
+ * since the database keeps microseconds and a JavaScript Date only milliseconds.
+ */
+export async function hasNewerPattern(db: DbExecutor, row: { id: string; sculptId: string }): Promise<boolean> {
   const rows = await db
     .select({ id: patterns.id })
     .from(patterns)
-    .where(and(eq(patterns.sculptId, row.sculptId), gt(patterns.createdAt, row.createdAt)))
+    .where(
+      and(
+        eq(patterns.sculptId, row.sculptId),
+        ne(patterns.id, row.id),
+        gt(patterns.createdAt, sql`(SELECT p.created_at FROM patterns p WHERE p.id = ${row.id})`),
+      ),
+    )
     .limit(1);
   return rows.length > 0;
 }
