@@ -37,7 +37,8 @@ import { benchRoutes } from './bench/router';
 import type { FileStore } from './storage/file-store';
 import { createFileStore } from './storage/create-file-store';
 import { downloadRoutes } from './downloads/router';
-import type { Mailer } from './mail/send-mail';
+import { publicUrl } from './mail/public-url';
+import { createMailer, type Mailer } from './mail/send-mail';
 import { orderRoutes } from './orders/router';
 import { PACK_COVER_JSON_LIMIT, PACK_COVER_PATH } from './packs/cover-upload';
 import { packRoutes } from './packs/router';
@@ -60,15 +61,13 @@ export interface AppDeps {
   signUpLimit?: SignUpLimitOptions | null;
   /** Overrides the password-reset limits from the environment; null turns them off (API tests about other things). */
   passwordResetLimit?: import('./password-reset/reset-limit').PasswordResetLimitOptions | null;
-  /** Sends e-mail (invitations, password resets); defaults to nodemailer on SMTP_URL. */
-  mailer?: import('./mail/send-mail').Mailer;
   /** Puts heavy work on the job queue; without it, routes that queue work answer 503 QUEUE_UNAVAILABLE. */
   jobs?: JobSender;
   /** Where stored files are kept; defaults to the store the settings name (STORAGE, server/storage/create-file-store.ts). */
   files?: FileStore;
   /** Lets site admins retry failed jobs; without it the retry route answers 503 QUEUE_UNAVAILABLE. */
   jobAdmin?: JobAdmin;
-  /** Sends e-mail (receipts, pack published); without it those mails are logged as not sent. */
+  /** Sends e-mail (invitations, resets, receipts, pack published); without it a mailer on SMTP_URL is made. */
   mailer?: Mailer;
   /** The payment provider; defaults to its SDK on PAY_API_URL; null turns paid checkout and refunds off (503). */
   payments?: PaymentGateway | null;
@@ -103,10 +102,10 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
 /** Returns the pattern-pack, order, webhook and download routes with their shared settings. */
 function commerceRoutes(deps: AppDeps, files: FileStore): MountableRoute[] {
   const payments = deps.payments === undefined ? createPaymentGateway(deps.env) : deps.payments;
-  const mailer = deps.mailer ?? null;
+  const mailer = deps.mailer ?? createMailer(deps.env, deps.db);
   const logger = deps.logger ?? createLogger(deps.env.LOG_LEVEL, 'api');
   const settings = {
-    publicUrl: (deps.env.PUBLIC_URL ?? `http://${deps.env.HOST}:${deps.env.PORT}`).replace(/\/+$/, ''),
+    publicUrl: publicUrl(deps.env),
     linkHours: deps.env.DOWNLOAD_LINK_HOURS,
     linkMaxUses: deps.env.DOWNLOAD_LINK_MAX_USES,
   };
