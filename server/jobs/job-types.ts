@@ -7,7 +7,7 @@ import type { Db } from '../../db/client';
 import { pruneRateLimitHits } from '../auth/rate-limit-store';
 import { PRINT_SET_JOB, PRINT_SET_QUEUE, runPrintSetJob } from '../print-sets/print-set-job';
 import { failStalePrintSets, STALE_PRINT_SETS_JOB } from '../print-sets/stale-print-sets';
-import { runSculptJob, SCULPT_JOB, SCULPT_QUEUE } from '../sculpts/sculpt-job';
+import { failStaleSculpts, runSculptJob, SCULPT_JOB, SCULPT_QUEUE, STALE_SCULPTS_JOB } from '../sculpts/sculpt-job';
 import { runPatternJob } from '../patterns/pattern-job';
 import { PATTERN_JOB, PATTERN_QUEUE, SHEET_PLAN_JOB, SHEET_PLAN_QUEUE } from '../patterns/pattern-job-name';
 import { runSheetPlanJob } from '../sheet-plans/sheet-plan-job';
@@ -63,5 +63,11 @@ export const JOB_TYPES: readonly JobType[] = [
     name: SHEET_PLAN_JOB,
     queue: SHEET_PLAN_QUEUE,
     run: (context, data) => runSheetPlanJob(context, data),
+  },
+  {
+    // A sculpt whose worker died past every retry would otherwise stay running for ever.
+    name: STALE_SCULPTS_JOB,
+    cron: '*/10 * * * *',
+    run: async (context) => failStaleSculpts(context),
   },
 ];

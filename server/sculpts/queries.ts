@@ -186,3 +186,13 @@ export async function replaceSeamSet(db: DbExecutor, shopId: string, sculptId: s
       set: { seams: write.seams, symmetry: write.symmetry, stretchBudgetPct: write.stretchBudgetPct, updatedBy: write.updatedBy, revision: sql`${seamSets.revision} + 1`, updatedAt: sql`now()` },
     });
 }
+
+/** Marks failed, with `error`, every sculpt still running that started more than `minutes` ago; returns their ids. */
+export async function failSculptsRunningLongerThan(db: DbExecutor, minutes: number, error: string): Promise<string[]> {
+  const rows = await db
+    .update(sculpts)
+    .set({ status: 'failed', error, finishedAt: sql`now()` })
+    .where(and(eq(sculpts.status, 'running'), lt(sculpts.startedAt, sql`now() - make_interval(mins => ${minutes})`)))
+    .returning({ id: sculpts.id });
+  return rows.map((r) => r.id);
+}

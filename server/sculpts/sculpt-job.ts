@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import type { JobContext } from '../jobs/job-types';
 import { processSculpt } from './process-sculpt';
-import { selectSculptById } from './queries';
+import { failSculptsRunningLongerThan, selectSculptById } from './queries';
 
 /** Queue name of the processing job. */
 export const SCULPT_JOB = 'sculpt-process';
@@ -22,4 +22,19 @@ export async function runSculptJob(context: JobContext, data: unknown): Promise<
   await processSculpt(context, parsed.data.sculptId);
   const row = await selectSculptById(context.db, parsed.data.sculptId);
   return { sculptId: parsed.data.sculptId, status: row?.status ?? 'gone' };
+}
+
+/** Queue name of the check that fails sculpts whose processing died (a worker killed past every retry). */
+export const STALE_SCULPTS_JOB = 'sculpt-reconcile';
+
+/** Every attempt's expiry plus five minutes: no live attempt can still be running after this. */
+export const STALE_SCULPT_MINUTES = ((SCULPT_QUEUE.retryLimit + 1) * SCULPT_QUEUE.expireInSeconds) / 60 + 5;
+
+/** Message stored on a sculpt whose processing never finished. */
+export const SCULPT_STALE_ERROR = `processing did not finish within ${STALE_SCULPT_MINUTES} minutes; change a setting or upload the model again to retry`;
+
+/** Fails sculpts left running past STALE_SCULPT_MINUTES, so none stays "running" for ever; returns how many. */
+export async function failStaleSculpts(context: JobContext): Promise<Record<string, unknown>> {
+  const ids = await failSculptsRunningLongerThan(context.db, STALE_SCULPT_MINUTES, SCULPT_STALE_ERROR);
+  return { failed: ids.length };
 }

@@ -8,7 +8,7 @@ import { randomUUID } from 'node:crypto';
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditLog } from '../../db/schema-core';
@@ -19,6 +19,7 @@ import { icoSphere, transformMesh } from '../../geometry/shapes';
 import type { TriMesh } from '../../geometry/mesh/tri-mesh';
 import type { JobSender } from '../../server/jobs/job-sender';
 import { processSculpt } from '../../server/sculpts/process-sculpt';
+import { failStaleSculpts, STALE_SCULPT_MINUTES } from '../../server/sculpts/sculpt-job';
 import type { FileStore } from '../../server/storage/file-store';
 import { localDiskStore } from '../../server/storage/local-disk-store';
 import { writeBinaryStl, writeObj, writePly } from '../geometry/io/model-writers';
@@ -205,6 +206,19 @@ describe('upload and processing', () => {
     const section = headSection(mesh.positions, mesh.triangles, { upAxis: 1, heightFraction: 0.5 })!;
     expect(section.circumferenceMm).toBeCloseTo(580, 1);
     expect(sculpt.report.warnings.join(' ')).toMatch(/scaled by .* to the wearer/);
+  });
+  it('fails a sculpt left running past every attempt\'s expiry, and leaves a recent one running', async () => {
+    const old = (await upload(objBytes(icoSphere(10, 0)), 'lost.obj')).body.sculpt.id;
+    const recent = (await upload(objBytes(icoSphere(10, 0)), 'busy.obj')).body.sculpt.id;
+    await ctx.db.update(sculpts).set({ status: 'running', startedAt: new Date(Date.now() - (STALE_SCULPT_MINUTES + 1) * 60_000) }).where(eq(sculpts.id, old));
+    await ctx.db.update(sculpts).set({ status: 'running', startedAt: new Date() }).where(eq(sculpts.id, recent));
+    await failStaleSculpts({ db: ctx.db, files });
+    const rows = await ctx.db.select().from(sculpts).where(inArray(sculpts.id, [old, recent]));
+    const byId = Object.fromEntries(rows.map((r) => [r.id, r]));
+    expect(byId[old]).toMatchObject({ status: 'failed' });
+    expect(byId[old].error).toMatch(/did not finish within \d+ minutes/);
+    expect(byId[recent].status).toBe('running');
+    await ctx.db.update(sculpts).set({ status: 'failed' }).where(eq(sculpts.id, recent));
   });
 });
 
