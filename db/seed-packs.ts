@@ -17,7 +17,7 @@ import { printSets } from './schema-core';
 import { packs } from './schema-packs';
 
 /** The demo packs as the catalogue shows them (slugs are fixed so the README and the browser test can name them). */
-export const DEMO_PACKS = [
+export const DEMO_PACKS: readonly DemoPack[] = [
   {
     slug: 'beetle-knight-helmet',
     title: 'Beetle knight helmet',
@@ -30,7 +30,7 @@ export const DEMO_PACKS = [
     priceCents: 0,
     description: 'A two-piece bracer to try the printed bevels and match marks before the big build.',
   },
-] as const;
+];
 
 const DEMO_LICENCE = 'For your own builds, including commissions you make by hand. Do not share or resell the pattern files.';
 
@@ -173,27 +173,36 @@ async function finishedPrintSet(tx: DbExecutor, files: FileStore, ids: { shopId:
   return row.id;
 }
 
+export interface DemoPack {
+  slug: string;
+  title: string;
+  priceCents: number;
+  description: string;
+}
+
 /**
- * Adds the DEMO_PACKS (published, newest first as listed) for the build's finished print set, with generated
- * covers. Skips a pack whose slug already exists, so running it twice adds nothing. Returns the slugs added.
+ * Adds the demo packs (DEMO_PACKS unless `options.demos` names others; published, newest first as listed) for the
+ * build's finished print set, with generated covers; `options.pattern` is rendered when the build has no finished
+ * print set (default: demoBracerPattern). Skips a pack whose slug already exists, so running it twice adds
+ * nothing. Returns the slugs added.
  */
 export async function seedDemoPacks(
   tx: DbExecutor,
   files: FileStore,
   ids: { shopId: string; buildId: string; ownerId: string },
-  pattern: PatternDoc = demoBracerPattern(),
+  options: { pattern?: PatternDoc; demos?: readonly DemoPack[] } = {},
 ): Promise<string[]> {
-  const printSetId = await finishedPrintSet(tx, files, ids, pattern);
+  const printSetId = await finishedPrintSet(tx, files, ids, options.pattern ?? demoBracerPattern());
   const covers = [
     demoCoverPng([[217, 179, 108], [126, 154, 110], [68, 96, 107], [180, 80, 28]]),
     demoCoverPng([[126, 154, 110], [217, 179, 108]]),
   ];
   const added: string[] = [];
-  for (const [i, demo] of DEMO_PACKS.entries()) {
+  for (const [i, demo] of (options.demos ?? DEMO_PACKS).entries()) {
     const taken = await tx.select({ id: packs.id }).from(packs).where(eq(packs.slug, demo.slug));
     if (taken.length > 0) continue;
     const coverKey = `packs/demo-${demo.slug}/cover-${i}.png`;
-    await files.put(coverKey, covers[i]);
+    await files.put(coverKey, covers[i % covers.length]);
     await tx.insert(packs).values({
       shopId: ids.shopId,
       printSetId,

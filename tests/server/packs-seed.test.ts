@@ -7,11 +7,10 @@ import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { crc32, inflateSync } from 'node:zlib';
-import { eq, inArray } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { printSets } from '../../db/schema-core';
-import { packs } from '../../db/schema-packs';
 import { DEMO_PACKS, demoCoverPng, seedDemoPacks } from '../../db/seed-packs';
 import { localDiskStore } from '../../server/storage/local-disk-store';
 import { insertBuild, makeShopFixture, makeTestApp, type ShopFixture, type TestContext } from './helpers';
@@ -23,8 +22,6 @@ const files = localDiskStore(mkdtempSync(path.join(tmpdir(), 'sheetsmith-packs-s
 beforeAll(async () => {
   ctx = await makeTestApp({ files });
   fx = await makeShopFixture(ctx);
-  // Demo slugs are fixed: clear any left by an earlier run of this file on the same test database.
-  await ctx.db.delete(packs).where(inArray(packs.slug, DEMO_PACKS.map((p) => p.slug)));
 });
 afterAll(() => ctx.close());
 
@@ -48,13 +45,18 @@ describe('demo packs', () => {
   it('seeds the paid and the free pack, public, with a rendered print set; a second run adds nothing', async () => {
     const [owner] = [fx.people.owner];
     const buildId = await insertBuild(ctx.db, fx.shopId, 'Beetle knight helmet');
-    const added = await ctx.db.transaction((tx) => seedDemoPacks(tx, files, { shopId: fx.shopId, buildId, ownerId: owner.id }));
-    expect(added).toEqual(DEMO_PACKS.map((p) => p.slug));
-    const again = await ctx.db.transaction((tx) => seedDemoPacks(tx, files, { shopId: fx.shopId, buildId, ownerId: owner.id }));
+    // Demo slugs are fixed and the test database outlives a run (and other files seed too), so this run's copies
+    // carry a tag.
+    const tag = Math.random().toString(36).slice(2, 8);
+    const demos = DEMO_PACKS.map((d) => ({ ...d, slug: `${d.slug}-${tag}` }));
+    const ids = { shopId: fx.shopId, buildId, ownerId: owner.id };
+    const added = await ctx.db.transaction((tx) => seedDemoPacks(tx, files, ids, { demos }));
+    expect(added).toEqual(demos.map((p) => p.slug));
+    const again = await ctx.db.transaction((tx) => seedDemoPacks(tx, files, ids, { demos }));
     expect(again).toEqual([]);
 
     const list = await request(ctx.app).get('/api/packs?perPage=60').expect(200);
-    const paid = list.body.packs.find((p: { slug: string }) => p.slug === DEMO_PACKS[0].slug);
+    const paid = list.body.packs.find((p: { slug: string }) => p.slug === demos[0].slug);
     expect(paid).toMatchObject({ priceCents: 1200, priceLabel: '12.00 EUR' });
     const [set] = await ctx.db.select().from(printSets).where(eq(printSets.buildId, buildId));
     expect(set.status).toBe('done');
@@ -64,7 +66,7 @@ describe('demo packs', () => {
     for await (const c of pdf!.stream) chunks.push(c as Buffer);
     // A PDF file starts with the header "%PDF-" (ISO 32000-1 §7.5.2).
     expect(Buffer.concat(chunks).subarray(0, 5).toString('latin1')).toBe('%PDF-');
-    const cover = await request(ctx.app).get(`/api/packs/${DEMO_PACKS[0].slug}/cover`).expect(200);
+    const cover = await request(ctx.app).get(`/api/packs/${demos[0].slug}/cover`).expect(200);
     expect(cover.headers['content-type']).toBe('image/png');
   });
 
