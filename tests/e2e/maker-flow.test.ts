@@ -101,6 +101,8 @@ describe.skipIf(!haveDist)(
         STORAGE: 'disk',
         FILES_DIR: path.join(tmp, 'files'),
         LOG_LEVEL: 'warn',
+        // Every browser test signs up from loopback; the sign-up limit (10 an hour) is the API tests' business.
+        SIGNUP_RATE_LIMIT: '1000',
       };
       startChild('server', 'server/index.ts', env);
       await waitForHealth(`${base}/api/health`, 60_000);
