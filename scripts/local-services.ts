@@ -110,7 +110,7 @@ async function main(): Promise<void> {
     log(`stopping (${signal})`);
     rmSync(stateFile, { force: true });
     Promise.allSettled(running.map((s) => s.close())).then(() => process.exit(0));
-    setTimeout(() => process.exit(0), 5_000).unref();
+    setTimeout(() => process.exit(0), 5_000);
   };
   process.on('SIGINT', () => stop('SIGINT'));
   process.on('SIGTERM', () => stop('SIGTERM'));
