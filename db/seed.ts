@@ -1,7 +1,8 @@
 /**
  * Demo data: an invented prop shop, its owner, a crew member, a commission client, two builds, and a site
- * admin. Written only into an empty database (no users yet), so a second `npm start` never duplicates it
- * and never touches real accounts.
+ * admin; with a file store, the first build also gets a processed sculpt, seams, a pattern, ticks, a note,
+ * stock and a sheet plan (db/seed-demo-build.ts). Written only into an empty database (no users yet), so a
+ * second `npm start` never duplicates it and never touches real accounts.
  *
  *   node --import tsx db/seed.ts [--migrate] [--print-sign-ins]
  */
@@ -9,6 +10,10 @@ import { sql } from 'drizzle-orm';
 import { hashPassword } from '../server/auth/passwords';
 import { createDb, createPool, DEFAULT_DATABASE_URL, type Db, type DbExecutor } from './client';
 import { runMigrations } from './migrate';
+import { seedDemoBuild } from './seed-demo-build';
+import { parseEnv } from '../server/env';
+import type { FileStore } from '../server/storage/file-store';
+import { createFileStore } from '../server/storage/create-file-store';
 import { auditLog, builds, memberships, shops, users } from './schema';
 import type { Role } from './validation';
 
@@ -41,13 +46,17 @@ async function hasUsers(db: DbExecutor): Promise<boolean> {
   return rows.length > 0;
 }
 
-/** Seeds the demo when the users table is empty; returns true when it wrote data, false when it left it alone. */
-export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
+/**
+ * Seeds the demo when the users table is empty; returns true when it wrote data, false when it left it alone.
+ * With `files`, the first demo build ("Beetle knight helmet") is also filled with its sculpt, seams, pattern and
+ * sheet plan (about two seconds of engine work on the demo helmet).
+ */
+export async function seedDemoIfEmpty(db: Db, files?: FileStore): Promise<boolean> {
   if (await hasUsers(db)) return false;
   const hashes = await Promise.all(DEMO_ACCOUNTS.map((a) => hashPassword(a.password)));
-  return db.transaction(async (tx) => {
+  const seeded = await db.transaction(async (tx) => {
     await tx.execute(sql`SELECT pg_advisory_xact_lock(${SEED_LOCK_KEY})`);
-    if (await hasUsers(tx)) return false;
+    if (await hasUsers(tx)) return null;
 
     const people = await tx
       .insert(users)
@@ -74,8 +83,11 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
     await tx.insert(auditLog).values(
       made.map((b) => ({ shopId: shop.id, userId: owner, action: 'build.create', target: `build:${b.id}`, detail: { name: b.name, seeded: true } })),
     );
-    return true;
+    return { shopId: shop.id, buildId: made.find((b) => b.name === DEMO_BUILD_NAMES[0])!.id, ownerId: owner, crewId: idOf(DEMO_ACCOUNTS[1].email) };
   });
+  if (!seeded) return false;
+  if (files) await seedDemoBuild(db, files, seeded);
+  return true;
 }
 
 /** Returns the demo sign-ins as printable lines. */
@@ -91,7 +103,7 @@ async function main(): Promise<void> {
       await runMigrations(pool);
       console.log('migrate: database schema is up to date');
     }
-    const seeded = await seedDemoIfEmpty(createDb(pool));
+    const seeded = await seedDemoIfEmpty(createDb(pool), createFileStore(parseEnv(process.env)));
     console.log(seeded ? `seed: demo shop "${DEMO_SHOP_NAME}" created` : 'seed: the database already has users; demo not added');
     if (process.argv.includes('--print-sign-ins')) console.log(['Demo sign-ins (role, e-mail, password):', ...demoSignInLines()].join('\n'));
   } finally {
