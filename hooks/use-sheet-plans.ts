@@ -11,9 +11,12 @@ const id = z.union([z.string().min(1), z.number().int()]).transform(String);
 const timestamp = z.string().refine((s) => !Number.isNaN(Date.parse(s)), 'expected an ISO 8601 date-time');
 
 /** A finished plan as geometry/layout/plan-sheets.ts makes it; the parts the preview reads are checked. */
-const sheetPlanDataSchema = z.custom<SheetPlan>((v) => {
+/** `currency` is the one the server priced the plan in (the shop's stock currency). */
+export type StoredSheetPlan = SheetPlan & { currency?: string };
+
+const sheetPlanDataSchema = z.custom<StoredSheetPlan>((v) => {
   if (!v || typeof v !== 'object') return false;
-  const p = v as Partial<SheetPlan>;
+  const p = v as Partial<StoredSheetPlan>;
   return Array.isArray(p.sheets) && Array.isArray(p.placements) && Array.isArray(p.byThickness) && typeof p.totalCost === 'number';
 }, 'expected a sheet plan with sheets, placements, byThickness and totalCost');
 
@@ -25,7 +28,6 @@ export const sheetPlanViewSchema = z.object({
   stage: z.string().nullable().optional().transform((v) => v ?? null),
   error: z.string().nullable().optional().transform((v) => v ?? null),
   plan: sheetPlanDataSchema.nullable().optional().transform((v) => v ?? null),
-  currency: z.string().nullable().optional().transform((v) => v ?? null),
   createdAt: timestamp,
   finishedAt: timestamp.nullable().optional().transform((v) => v ?? null),
 });

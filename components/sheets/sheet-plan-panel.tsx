@@ -41,6 +41,7 @@ export function SheetPlanPanel({ shopId, buildId, pattern, canEdit, maxWidthPx }
   };
 
   const newest = plans.data?.[0] ?? null;
+  const plan = newest && newest.status === 'done' ? newest.plan : null;
   const drawWidth = Math.min(maxWidthPx, width - 4 * space.lg);
   return (
     <View style={styles.gap}>
@@ -67,7 +68,7 @@ export function SheetPlanPanel({ shopId, buildId, pattern, canEdit, maxWidthPx }
           {newest.error ?? 'The job stopped without a message.'}
         </Notice>
       ) : null}
-      {newest && newest.status === 'done' && newest.plan ? (
+      {newest && plan ? (
         <View style={styles.gap}>
           {newest.patternId !== pattern.id ? (
             <Notice tone="caution">This plan was made from an earlier version of the pieces. Make a new one to match the current pieces.</Notice>
@@ -79,31 +80,31 @@ export function SheetPlanPanel({ shopId, buildId, pattern, canEdit, maxWidthPx }
               <Text role="columnheader" variant="label" style={styles.c}>Used</Text>
               <Text role="columnheader" variant="label" style={styles.c}>Cost</Text>
             </View>
-            {newest.plan.byThickness.map((t) => (
+            {plan.byThickness.map((t) => (
               <View role="row" key={t.thicknessMm} style={styles.tr}>
                 <Text role="cell" style={styles.c1}>{t.thicknessMm} mm</Text>
                 <Text role="cell" variant="mono" style={styles.c}>{t.sheets}</Text>
                 <Text role="cell" variant="mono" style={styles.c}>{t.usedPct.toFixed(0)} %</Text>
-                <Text role="cell" variant="mono" style={styles.c}>{formatMoney(t.cost, newest.currency ?? currency)}</Text>
+                <Text role="cell" variant="mono" style={styles.c}>{formatMoney(t.cost, plan.currency ?? currency)}</Text>
               </View>
             ))}
             <View role="row" style={[styles.tr, styles.total]}>
               <Text role="cell" variant="label" style={styles.c1}>All</Text>
-              <Text role="cell" variant="mono" style={styles.c}>{newest.plan.sheets.length}</Text>
+              <Text role="cell" variant="mono" style={styles.c}>{plan.sheets.length}</Text>
               <Text role="cell" style={styles.c}> </Text>
-              <Text role="cell" variant="label" style={styles.c}>{formatMoney(newest.plan.totalCost, newest.currency ?? currency)}</Text>
+              <Text role="cell" variant="label" style={styles.c}>{formatMoney(plan.totalCost, plan.currency ?? currency)}</Text>
             </View>
           </View>
-          <Text variant="small">{newest.plan.sparesRule} Spares are drawn dashed; a mark ′ after a label is a mirrored copy.</Text>
+          <Text variant="small">{plan.sparesRule} Spares are drawn dashed; a mark ′ after a label is a mirrored copy.</Text>
           <View style={styles.sheets}>
-            {newest.plan.sheets.map((s, i) => (
+            {plan.sheets.map((s, i) => (
               <View key={i} style={styles.sheet}>
                 <Text variant="label">
                   Sheet {i + 1} · {s.thicknessMm} mm · {Math.round(s.widthMm)} × {Math.round(s.heightMm)} mm · {s.usedPct.toFixed(0)} % used
                 </Text>
                 <SheetDrawing
                   sheet={s}
-                  placements={newest.plan!.placements.filter((p) => p.sheetIndex === i)}
+                  placements={plan.placements.filter((p) => p.sheetIndex === i)}
                   widthPx={Math.min(drawWidth, s.widthMm >= s.heightMm ? drawWidth : drawWidth * 0.6)}
                   title={`Sheet ${i + 1}, ${s.thicknessMm} mm, ${s.copies} copies placed, ${s.usedPct.toFixed(0)} percent used`}
                 />

@@ -47,6 +47,9 @@ export function StockEditor({ shopId, canEdit, patternThicknesses }: { shopId: s
   if (!editing) {
     return (
       <View style={styles.gap}>
+        {list.some((s) => (s as { source?: string }).source === 'default') ? (
+          <Text variant="small">Common sheet sizes with example prices, used until the shop sets its own stock.</Text>
+        ) : null}
         {list.length === 0 ? (
           <Text>No stock sheets yet. The sheet plan then uses common sheet sizes with no price.</Text>
         ) : (

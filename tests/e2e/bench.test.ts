@@ -1,0 +1,291 @@
+/**
+ * Browser test of the pieces, sheets & print and bench pages against the real server and database, with the
+ * demo helmet's build made by the same functions the workers run (db/seed-demo-build.ts): a crew member on a
+ * 390 px phone looks up a seam by number, ticks a piece, reloads and finds it still ticked, sees another
+ * member's tick arrive, sees a refused tick rolled back, and opens the safety cautions; a client sees the
+ * checklist read-only. Screenshots of the three pages at 390 and 1280 px go to tests/artifacts/ (ignored by git).
+ *
+ * Expected values come from the stored pattern document (the engine's output for this build) and the API
+ * contract (CONTRACTS.md: PATCH …/pieces/:label/progress; the bench refreshes every 10 s, issue 5 point 6).
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { and, eq } from 'drizzle-orm';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createDb, createPool } from '../../db/client';
+import { buildPieces } from '../../db/schema-bench';
+import { builds, memberships, shops, users } from '../../db/schema-core';
+import { patterns } from '../../db/schema-sculpts';
+import { seedDemoBuild } from '../../db/seed-demo-build';
+import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
+import { hashPassword } from '../../server/auth/passwords';
+import { localDiskStore } from '../../server/storage/local-disk-store';
+
+const root = path.resolve(__dirname, '../..');
+const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
+const artifacts = path.join(root, 'tests', 'artifacts');
+
+// Flags measured on this kind of machine (shared/STACK.md).
+const chromiumArgs = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--use-angle=swiftshader', '--enable-unsafe-swiftshader', '--disable-quic',
+  '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync',
+];
+const PASSWORD = 'offcut-bevel-30deg';
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.once('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const addr = srv.address();
+      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
+    });
+  });
+}
+
+let server: ChildProcess | null = null;
+let serverLog = '';
+let base = '';
+let browser: Browser | null = null;
+let filesDir = '';
+let pool: ReturnType<typeof createPool> | null = null;
+let db: ReturnType<typeof createDb>;
+const people = { owner: '', crew: '', client: '' };
+const emails = { owner: '', crew: '', client: '' };
+let shopId = '';
+let buildId = '';
+let doc: PatternDoc;
+
+async function waitForHealth(url: string, ms: number): Promise<void> {
+  const until = Date.now() + ms;
+  let last = 'no answer';
+  while (Date.now() < until) {
+    if (server?.exitCode !== null && server?.exitCode !== undefined) throw new Error(`server exited with code ${server.exitCode}:\n${serverLog.slice(-3000)}`);
+    try {
+      const res = await fetch(url);
+      if (res.ok) return;
+      last = `HTTP ${res.status}`;
+    } catch (e) {
+      last = String(e);
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`/api/health did not answer OK within ${ms} ms (last: ${last}). Server output:\n${serverLog.slice(-3000)}`);
+}
+
+async function signedIn(who: keyof typeof emails, width: number, height: number): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+  const context = await browser!.newContext({ viewport: { width, height } });
+  const res = await context.request.post(`${base}/api/auth/signin`, { data: { email: emails[who], password: PASSWORD } });
+  expect(res.status(), await res.text()).toBe(200);
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  return { context, page, errors };
+}
+
+const href = (section: string) => `${base}/builds/${buildId}/${section}?shop=${shopId}`;
+const shot = (page: Page, name: string) => page.screenshot({ path: path.join(artifacts, `screens-${name}.png`), fullPage: true });
+
+describe.skipIf(!haveDist)(
+  haveDist ? 'pieces, sheets and bench pages in a browser' : 'pieces, sheets and bench pages — SKIPPED: dist/ is missing; run `npm run web:build` (npm test does it)',
+  () => {
+    beforeAll(async () => {
+      const databaseUrl = process.env.DATABASE_URL;
+      if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the browser test through `npm test`, which starts the test database.');
+      mkdirSync(artifacts, { recursive: true });
+      filesDir = mkdtempSync(path.join(tmpdir(), 'ss-bench-e2e-'));
+      pool = createPool(databaseUrl, 4);
+      db = createDb(pool);
+      const stamp = `${Date.now().toString(36)}${Math.floor(Math.random() * 1e6).toString(36)}`;
+      const hash = await hashPassword(PASSWORD);
+      for (const who of ['owner', 'crew', 'client'] as const) {
+        emails[who] = `${who}-${stamp}@bench.example.com`;
+        const [u] = await db.insert(users).values({ email: emails[who], name: `Bench ${who}`, passwordHash: hash }).returning({ id: users.id });
+        people[who] = u.id;
+      }
+      const [shop] = await db.insert(shops).values({ name: `Bench shop ${stamp}` }).returning({ id: shops.id });
+      shopId = shop.id;
+      await db.insert(memberships).values([
+        { userId: people.owner, shopId, role: 'owner' },
+        { userId: people.crew, shopId, role: 'editor' },
+        { userId: people.client, shopId, role: 'viewer' },
+      ]);
+      const [build] = await db.insert(builds).values({ shopId, name: 'Bench test helm' }).returning({ id: builds.id });
+      buildId = build.id;
+      await seedDemoBuild(db, localDiskStore(filesDir), { shopId, buildId, ownerId: people.owner, crewId: people.crew });
+      const [p] = await db.select({ doc: patterns.doc }).from(patterns).where(eq(patterns.buildId, buildId));
+      doc = p.doc as PatternDoc;
+
+      const port = await freePort();
+      base = `http://127.0.0.1:${port}`;
+      server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+        cwd: root,
+        env: {
+          ...process.env,
+          PORT: String(port),
+          WEB_ROOT: 'dist',
+          FILES_DIR: filesDir,
+          STORAGE: 'disk',
+          SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
+          DATABASE_URL: databaseUrl,
+        },
+        stdio: ['ignore', 'pipe', 'pipe'],
+      });
+      const keep = (chunk: Buffer) => {
+        serverLog = (serverLog + chunk.toString()).slice(-20_000);
+      };
+      server.stdout?.on('data', keep);
+      server.stderr?.on('data', keep);
+      await waitForHealth(`${base}/api/health`, 60_000);
+      browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    });
+
+    afterAll(async () => {
+      await browser?.close();
+      const child = server;
+      if (child && child.exitCode === null) {
+        const exited = new Promise((r) => child.once('exit', r));
+        child.kill('SIGTERM');
+        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
+        if (child.exitCode === null) child.kill('SIGKILL');
+      }
+      await pool?.end();
+      if (filesDir) rmSync(filesDir, { recursive: true, force: true });
+    });
+
+    it('bench at 390 px: seam look-up, a tick that survives a reload, another member\'s tick, a refused tick rolled back, cautions', async () => {
+      const { context, page, errors } = await signedIn('crew', 390, 844);
+      try {
+        await page.goto(href('bench'));
+        await page.getByRole('heading', { name: 'Bench', level: 1 }).waitFor();
+
+        // Seam look-up: the first seam of the stored pattern, its two pieces and the bevel cut on each edge.
+        const seam = doc.seams[0];
+        const edgeOf = (piece: string, side: number) => doc.pieces.find((p) => p.label === piece)?.seamEdges?.find((e) => e.seam === seam.label && e.side === side && (e.copy ?? 0) === 0);
+        const sides = (seam.pieces.length === 1 ? [seam.pieces[0], seam.pieces[0]] : seam.pieces).map((piece, side) => ({ piece, bevel: edgeOf(piece, side)?.bevelDeg ?? seam.bevel.mean }));
+        await page.getByRole('textbox', { name: 'Seam number' }).fill(`${seam.label}`);
+        await page.getByText(`Seam ${seam.label} joins`).waitFor();
+        for (const s of sides) {
+          // Shown to the half degree, as formatBevel does (a value a blade guide can be set to).
+          const half = Math.round(s.bevel * 2) / 2;
+          await expect(page.getByLabel(`Bevel ${Number.isInteger(half) ? half : half.toFixed(1)}° on piece ${s.piece}`, { exact: false }).first().isVisible()).resolves.toBe(true);
+        }
+        await expect(page.getByText(seam.convex ? '△ Outside corner' : '▲ Inside corner', { exact: false }).isVisible()).resolves.toBe(true);
+        await page.getByRole('textbox', { name: 'Seam number' }).fill('999');
+        await page.getByRole('alert').filter({ hasText: 'No seam 999' }).waitFor();
+        await page.getByRole('textbox', { name: 'Seam number' }).fill(`${seam.label}`);
+        await shot(page, 'bench-390');
+
+        // Tick: the first piece not yet glued (the seed cut three pieces and shaped one; none is glued).
+        const label = doc.pieces[0].label;
+        const box = page.getByRole('checkbox', { name: `Piece ${label} glued` });
+        await expect(box.getAttribute('aria-checked')).resolves.toBe('false');
+        const saved = page.waitForResponse((r) => r.url().endsWith(`/pieces/${label}/progress`) && r.request().method() === 'PATCH');
+        await box.click();
+        await expect(box.getAttribute('aria-checked')).resolves.toBe('true');
+        expect((await saved).status()).toBe(200);
+        const [row] = await db.select({ glued: buildPieces.glued }).from(buildPieces).where(and(eq(buildPieces.buildId, buildId), eq(buildPieces.label, label)));
+        expect(row.glued).toBe(true);
+        await page.reload();
+        const again = page.getByRole('checkbox', { name: `Piece ${label} glued` });
+        await again.waitFor();
+        await expect(again.getAttribute('aria-checked')).resolves.toBe('true');
+
+        // Another member's tick arrives without a reload (the bench refreshes every 10 s).
+        const other = doc.pieces[1].label;
+        const owner = await browser!.newContext();
+        const signIn = await owner.request.post(`${base}/api/auth/signin`, { data: { email: emails.owner, password: PASSWORD } });
+        expect(signIn.status()).toBe(200);
+        const patch = await owner.request.patch(`${base}/api/shops/${shopId}/builds/${buildId}/pieces/${other}/progress`, { data: { glued: true } });
+        expect(patch.status(), await patch.text()).toBe(200);
+        await owner.close();
+        await page.waitForFunction(
+          (name) => document.querySelector(`[aria-label="${name}"]`)?.getAttribute('aria-checked') === 'true',
+          `Piece ${other} glued`,
+          { timeout: 15_000 },
+        );
+
+        // A refused tick goes back and says why (the server is made to answer 500 for this one request).
+        const third = doc.pieces[2].label;
+        await page.route(`**/pieces/${third}/progress`, (route) =>
+          route.fulfill({ status: 500, contentType: 'application/json', body: JSON.stringify({ error: { code: 'INTERNAL', message: 'The checklist could not be saved.' } }) }),
+        );
+        const refused = page.getByRole('checkbox', { name: `Piece ${third} glued` });
+        await refused.click();
+        await page.getByRole('alert').filter({ hasText: 'The checklist could not be saved.' }).waitFor();
+        await expect(refused.getAttribute('aria-checked')).resolves.toBe('false');
+        await page.unroute(`**/pieces/${third}/progress`);
+
+        // The cautions, one tap away: ventilation, respirator for organic vapours, and the safety data sheet.
+        await page.getByRole('button', { name: 'Safety cautions' }).click();
+        const dialog = page.getByRole('dialog', { name: 'Safety cautions' });
+        await dialog.waitFor();
+        const text = await dialog.innerText();
+        expect(text).toMatch(/respirator/i);
+        expect(text).toMatch(/organic vapour/i);
+        expect(text).toMatch(/safety data sheet/i);
+        expect(text).toMatch(/heat-resistant|heat-proof/i);
+        await shot(page, 'bench-390-cautions');
+        await page.getByRole('button', { name: 'Close the cautions', exact: true }).click();
+        await dialog.waitFor({ state: 'hidden' });
+        expect(errors).toEqual([]);
+      } catch (e) {
+        await shot(page, 'bench-390-failure').catch(() => undefined);
+        throw new Error(`${(e as Error).message}\nServer output:\n${serverLog.slice(-2000)}`);
+      } finally {
+        await context.close();
+      }
+    });
+
+    it('a client sees the checklist read-only', async () => {
+      const { context, page } = await signedIn('client', 390, 844);
+      try {
+        await page.goto(href('bench'));
+        const box = page.getByRole('checkbox', { name: `Piece ${doc.pieces[0].label} cut` });
+        await box.waitFor();
+        await expect(box.getAttribute('aria-disabled')).resolves.toBe('true');
+        await page.getByText('the checklist is shown, not changed', { exact: false }).waitFor();
+      } finally {
+        await context.close();
+      }
+    });
+
+    for (const vp of [
+      { width: 390, height: 844 },
+      { width: 1280, height: 800 },
+    ]) {
+      it(`pieces, sheets and bench pages render at ${vp.width} px`, async () => {
+        const { context, page, errors } = await signedIn('owner', vp.width, vp.height);
+        try {
+          await page.goto(href('pieces'));
+          const first = doc.pieces[0];
+          const piece = page.getByRole('button', { name: new RegExp(`^Piece ${first.label}, `) });
+          await piece.waitFor();
+          await expect(page.getByRole('button', { name: /^Piece [A-Z]+, / }).count()).resolves.toBe(doc.pieces.length);
+          await piece.click();
+          await expect(piece.getAttribute('aria-pressed')).resolves.toBe('true');
+          await page.getByRole('heading', { name: `Piece ${first.label}`, level: 2 }).waitFor();
+          await page.getByRole('radiogroup', { name: `Foam thickness of piece ${first.label}` }).waitFor();
+          await shot(page, `pieces-${vp.width}`);
+
+          await page.goto(href('sheets'));
+          await page.getByRole('heading', { name: 'Sheet plan', level: 2 }).waitFor();
+          await page.getByRole('table', { name: 'Sheets per thickness' }).waitFor();
+          await page.getByRole('radiogroup', { name: 'Page size' }).waitFor();
+          await shot(page, `sheets-${vp.width}`);
+
+          await page.goto(href('bench'));
+          await page.getByRole('textbox', { name: 'Seam number' }).waitFor();
+          await shot(page, `bench-${vp.width}-owner`);
+          expect(errors).toEqual([]);
+        } finally {
+          await context.close();
+        }
+      });
+    }
+  },
+);
