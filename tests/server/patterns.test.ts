@@ -131,6 +131,23 @@ describe('pattern-build job and pattern routes', () => {
     expect(byId.get(second.body.pattern.id).status).toBe('done');
   });
 
+  it('fails a pattern with the engine’s message when the working mesh is unreadable, and its faces answer 409', async () => {
+    const { buildId, sculptId } = await sculptBuild('Broken mesh', cylinder(20, 20, 12, 1), [[0, 12]]);
+    await files.put(`sculpts/${sculptId}/mesh.bin`, new TextEncoder().encode('not a working mesh'));
+    const queued = await request(ctx.app).post(`${buildUrl(buildId)}/pattern`).set('Cookie', as('editor'));
+    const facesUrl = `${buildUrl(buildId)}/patterns/${queued.body.pattern.id}/faces`;
+    const early = await request(ctx.app).get(facesUrl).set('Cookie', as('viewer'));
+    expect(early.status).toBe(409);
+    expect(early.body.error.code).toBe('NOT_READY');
+    await runJobs(PATTERN_JOB);
+    const { body } = await request(ctx.app).get(`${buildUrl(buildId)}/pattern`).set('Cookie', as('viewer'));
+    expect(body.pattern.status).toBe('failed');
+    expect(body.pattern.error).toMatch(/working mesh/);
+    expect(body.pattern.facesUrl).toBeNull();
+    const late = await request(ctx.app).get(facesUrl).set('Cookie', as('viewer'));
+    expect(late.body.error.code).toBe('PATTERN_FAILED');
+  });
+
   it('answers 409 NO_SCULPT for a build without a sculpt and 404 for another shop’s build', async () => {
     const empty = await insertBuild(ctx.db, fx.shopId, 'No sculpt yet');
     const res = await request(ctx.app).post(`${buildUrl(empty)}/pattern`).set('Cookie', as('editor'));
@@ -243,6 +260,23 @@ describe('a cube build: piece settings, checklist, notes, stock, sheet plan, pri
     const unknown = await request(ctx.app).post(`${buildUrl(buildId)}/sheet-plans`).set('Cookie', as('editor')).send({ patternId: randomUUID(), gapMm: -1 });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.fields.gapMm).toBe('must be 0 mm or more');
+  });
+
+  it('records the engine’s message when a piece fits no stock sheet of its thickness', async () => {
+    const pattern = (await request(ctx.app).get(`${buildUrl(buildId)}/pattern`).set('Cookie', as('viewer'))).body.pattern;
+    const small = { thicknessMm: 6, name: 'Offcut', widthMm: 80, heightMm: 80, price: 1, currency: 'EUR' };
+    await request(ctx.app).put(`/api/shops/${fx.shopId}/stock`).set('Cookie', as('editor')).send({ sheets: [small] }).expect(200);
+    const created = await request(ctx.app).post(`${buildUrl(buildId)}/sheet-plans`).set('Cookie', as('editor')).send({ patternId: pattern.id });
+    await runJobs(SHEET_PLAN_JOB);
+    const got = await request(ctx.app).get(`${buildUrl(buildId)}/sheet-plans/${created.body.sheetPlan.id}`).set('Cookie', as('viewer'));
+    // A 100 mm square does not fit an 80 mm sheet in any rotation (its narrowest width is 100 mm).
+    expect(got.body.sheetPlan).toMatchObject({ status: 'failed', plan: null, summary: null });
+    expect(got.body.sheetPlan.error).toMatch(/^piece A \(.*\) does not fit on any 6 mm stock sheet \(80×80 mm\)/);
+    await request(ctx.app)
+      .put(`/api/shops/${fx.shopId}/stock`)
+      .set('Cookie', as('editor'))
+      .send({ sheets: [{ thicknessMm: 6, name: 'Mid sheet', widthMm: 1000, heightMm: 500, price: 12.5, currency: 'EUR' }] })
+      .expect(200);
   });
 
   it('makes a print set from the pattern id, and refuses a pattern of another build', async () => {
