@@ -24,6 +24,9 @@ export function CatalogueScreen() {
   return (
     <Screen>
       <PageTitle title="Pattern packs" />
+      <Text variant="display" heading={1}>
+        Pattern packs
+      </Text>
       <Text variant="small" style={styles.lead}>
         Foam patterns made with Sheetsmith, ready to print at true scale. Free ones are yours for an e-mail address.
       </Text>

@@ -30,6 +30,9 @@ export function DownloadScreen({ token }: { token: string }) {
     return (
       <Screen>
         <PageTitle title="Download" />
+        <Text variant="display" heading={1}>
+          Download
+        </Text>
         <Notice tone="error">{download.error?.message ?? 'The download could not be opened.'}</Notice>
       </Screen>
     );
@@ -39,6 +42,9 @@ export function DownloadScreen({ token }: { token: string }) {
   return (
     <Screen>
       <PageTitle title={d.packTitle} />
+      <Text variant="display" heading={1}>
+        {d.packTitle}
+      </Text>
       <Text variant="small">from {d.shopName}</Text>
       <Card edge style={styles.card}>
         <Text variant="label">

@@ -27,6 +27,9 @@ export function PackScreen({ slug, returned }: { slug: string; returned: 'paid' 
     return (
       <Screen>
         <PageTitle title="Pattern pack" />
+        <Text variant="display" heading={1}>
+          Pattern pack
+        </Text>
         <Notice tone="error">{pack.error?.message ?? 'The pack could not be loaded.'}</Notice>
         <Link href="/packs" style={styles.link}>All pattern packs</Link>
       </Screen>
@@ -39,6 +42,9 @@ export function PackScreen({ slug, returned }: { slug: string; returned: 'paid' 
         ← All pattern packs
       </Link>
       <PageTitle title={p.title} />
+      <Text variant="display" heading={1}>
+        {p.title}
+      </Text>
       <Text variant="small">by {p.shopName}</Text>
       {returned === 'paid' ? (
         <Notice tone="note" title="Thank you — check your e-mail">
@@ -74,7 +80,8 @@ export function PackScreen({ slug, returned }: { slug: string; returned: 'paid' 
 
 const styles = StyleSheet.create({
   link: { color: palette.emberDeep, fontSize: 14, textDecorationLine: 'underline', marginBottom: space.sm },
-  cover: { width: '100%', aspectRatio: 4 / 3, borderRadius: radius.md, marginTop: space.lg, backgroundColor: palette.sheetSunk },
+  // Capped so on a wide window the cover does not push the price and the form below the fold.
+  cover: { width: '100%', maxWidth: 480, aspectRatio: 4 / 3, borderRadius: radius.md, marginTop: space.lg, backgroundColor: palette.sheetSunk },
   block: { marginTop: space.lg },
   heading: { marginTop: space.xl, marginBottom: space.xs },
 });
