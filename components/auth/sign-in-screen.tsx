@@ -57,6 +57,9 @@ export function SignInScreen() {
       />
       {formError ? <Notice tone="error">{formError}</Notice> : null}
       <Button label="Sign in" onPress={submit} busy={signIn.isPending} />
+      <Link href="/forgot-password" style={[styles.link, styles.forgot]}>
+        Forgot your password?
+      </Link>
       <View style={styles.switch}>
         <Text variant="small">New to Sheetsmith?</Text>
         <Link href="/sign-up" style={styles.link}>
@@ -70,4 +73,5 @@ export function SignInScreen() {
 const styles = StyleSheet.create({
   switch: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, marginTop: space.xl, alignItems: 'center' },
   link: { color: palette.emberDeep, fontSize: 14, textDecorationLine: 'underline' },
+  forgot: { marginTop: space.md, alignSelf: 'flex-start' },
 });
