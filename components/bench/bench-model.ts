@@ -16,6 +16,8 @@ export interface BenchPieceState {
 
 export interface BenchPiece extends BenchPieceState {
   quantity: number;
+  /** Spare copies the newest sheet plan adds (0 without a plan). */
+  spares: number;
   mirroredCopies: number;
   maxStretchPct: number;
 }
@@ -23,7 +25,7 @@ export interface BenchPiece extends BenchPieceState {
 export interface ThicknessGroup {
   thicknessMm: number;
   pieces: BenchPiece[];
-  /** Copies to cut in this thickness (sum of quantities). */
+  /** Copies to cut in this thickness (sum of quantities and spares). */
   copies: number;
   /** Pieces of this group with every step ticked. */
   done: number;
@@ -31,10 +33,11 @@ export interface ThicknessGroup {
 
 /**
  * Groups the pattern's pieces by thickness (thinnest first; pieces by label within a group), each with its copy
- * count and its checklist from `states` (unticked when the piece has no row yet). Rows for labels the pattern no
- * longer has are left out.
+ * count and its checklist from `states` (unticked when the piece has no row yet), and its spare copies from
+ * `spares` (by label; the server's bench view takes them from the newest sheet plan). Rows for labels the pattern
+ * no longer has are left out.
  */
-export function piecesByThickness(doc: PatternDoc, states: readonly BenchPieceState[]): ThicknessGroup[] {
+export function piecesByThickness(doc: PatternDoc, states: readonly BenchPieceState[], spares: ReadonlyMap<string, number> = new Map()): ThicknessGroup[] {
   const byLabel = new Map(states.map((s) => [s.label, s]));
   const groups = new Map<number, ThicknessGroup>();
   for (const p of doc.pieces) {
@@ -46,6 +49,7 @@ export function piecesByThickness(doc: PatternDoc, states: readonly BenchPieceSt
       glued: s?.glued ?? false,
       notes: s?.notes ?? 0,
       quantity: p.quantity,
+      spares: spares.get(p.label) ?? 0,
       mirroredCopies: p.mirrored ? (p.mirroredCopies ?? 1) : 0,
       maxStretchPct: p.stretch.maxPct,
     };
@@ -55,7 +59,7 @@ export function piecesByThickness(doc: PatternDoc, states: readonly BenchPieceSt
       groups.set(p.thickness, g);
     }
     g.pieces.push(piece);
-    g.copies += p.quantity;
+    g.copies += p.quantity + piece.spares;
     if (piece.cut && piece.shaped && piece.glued) g.done += 1;
   }
   const out = [...groups.values()].sort((a, b) => a.thicknessMm - b.thicknessMm);

@@ -32,7 +32,8 @@ export function PieceChecklist({ shopId, buildId, piece, canEdit, onTick }: Piec
       <View style={styles.head}>
         <Text style={styles.label}>{piece.label}</Text>
         <Text variant="small" style={styles.grow}>
-          ×{piece.quantity}
+          Cut {piece.quantity + piece.spares}
+          {piece.spares > 0 ? ` (${piece.quantity} + ${piece.spares} spare)` : ''}
           {piece.mirroredCopies > 0 ? ` · ${piece.mirroredCopies} mirrored` : ''}
           {done ? ' · done' : ''}
         </Text>

@@ -20,7 +20,7 @@ export function SeamLookup({ doc }: { doc: PatternDoc }) {
   const numbers = doc.seams.map((s) => s.label);
   return (
     <View style={styles.card}>
-      <Text variant="label" nativeID="seam-number-label">
+      <Text variant="label" nativeID="seam-number-label" style={styles.inputLabel}>
         Seam number
       </Text>
       <TextInput
@@ -107,6 +107,7 @@ const styles = StyleSheet.create({
     paddingHorizontal: space.md,
     backgroundColor: '#3a332e',
   },
+  inputLabel: { color: palette.onBench },
   hintText: { color: palette.onBenchSoft, fontSize: 15 },
   missing: { color: '#ffb4a6', fontSize: 17 },
   result: { gap: space.md },

@@ -13,10 +13,12 @@ import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { palette, radius, space } from '../ui/theme';
+import { formatBevel } from '../bench/bench-model';
 import { ChoiceChips } from './choice-chips';
 import { PIECE_FILLS } from './mark-styles';
 import { PieceSvg } from './piece-svg';
 import { pieceSvgModel } from './piece-svg-model';
+import { pieceSeamRows } from './piece-seams';
 import { SURFACE_HELP, THICKNESS_CHOICES_MM, parseQuantity, parseThickness, stretchVerdict } from './piece-settings-input';
 
 export interface PiecePanelProps {
@@ -77,6 +79,7 @@ export function PiecePanel({ shopId, buildId, doc, label, state, canEdit, stretc
       <Notice tone={verdict.over ? 'caution' : 'note'} title={verdict.over ? 'Over the stretch budget' : 'Stretch'}>
         {verdict.message}
       </Notice>
+      <PieceSeamList doc={doc} label={piece.label} />
       {piece.scoreLines && piece.scoreLines.length > 0 ? (
         <Text variant="small">
           {piece.scoreLines.length} score line{piece.scoreLines.length === 1 ? '' : 's'} (dash-dot): cut a shallow V-groove on the inner face, then fold.
@@ -200,8 +203,37 @@ export function PiecePanel({ shopId, buildId, doc, label, state, canEdit, stretc
   }
 }
 
+/** The piece's seams as a small table: number, other piece, bevel on this edge, corner. */
+function PieceSeamList({ doc, label }: { doc: PatternDoc; label: string }) {
+  const rows = pieceSeamRows(doc, label);
+  if (rows.length === 0) return null;
+  return (
+    <View role="table" accessibilityLabel={`Seams of piece ${label}`} style={styles.seams}>
+      <View role="row" style={styles.seamRow}>
+        <Text role="columnheader" variant="label" style={styles.seamNo}>Seam</Text>
+        <Text role="columnheader" variant="label" style={styles.seamCell}>Joins</Text>
+        <Text role="columnheader" variant="label" style={styles.seamCell}>Bevel here</Text>
+        <Text role="columnheader" variant="label" style={styles.seamCell}>Corner</Text>
+      </View>
+      {rows.map((r) => (
+        <View role="row" key={r.seam} style={styles.seamRow}>
+          <Text role="cell" variant="mono" style={[styles.seamNo, styles.seamNumber]}>{r.seam}</Text>
+          <Text role="cell" style={styles.seamCell}>{r.joins === label ? 'itself' : r.joins}</Text>
+          <Text role="cell" variant="mono" style={styles.seamCell}>{r.face === 'none' ? 'square' : `${formatBevel(r.bevelDeg)} ${r.face}`}</Text>
+          <Text role="cell" style={styles.seamCell}>{r.corner === 'outside' ? '△ outside' : '▲ inside'}</Text>
+        </View>
+      ))}
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
   card: { gap: space.md },
+  seams: { borderWidth: 1, borderColor: palette.rule, borderRadius: radius.sm },
+  seamRow: { flexDirection: 'row', paddingHorizontal: space.sm, paddingVertical: space.xxs, borderBottomWidth: 1, borderBottomColor: palette.sheetSunk },
+  seamNo: { width: 52 },
+  seamNumber: { color: '#00756f', fontWeight: '700' },
+  seamCell: { flex: 1 },
   drawing: { alignItems: 'center', paddingVertical: space.sm, backgroundColor: palette.sheet, borderRadius: radius.sm, borderWidth: 1, borderColor: palette.rule, overflow: 'hidden' },
   section: { gap: space.xs },
   inline: { flexDirection: 'row', alignItems: 'flex-start', gap: space.sm },

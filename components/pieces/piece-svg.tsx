@@ -13,6 +13,7 @@ export interface PieceSvgProps {
   fill: string;
   outlineBoost?: number;
   title: string;
+  thumbnail?: boolean;
 }
 
 /** Renders a box of the piece's drawn size with its description. */

@@ -16,6 +16,11 @@ export interface PieceSvgProps {
   outlineBoost?: number;
   /** Short text description for screen readers (the drawing itself is decorative to them). */
   title: string;
+  /**
+   * Board thumbnails: leave off the frames round seam numbers (the numbers are raised to a readable size and
+   * would spill out of frames drawn at paper size) and the thickness line (the cell's caption gives it).
+   */
+  thumbnail?: boolean;
 }
 
 const fontFor = (weight: 'bold' | 'regular' | 'mono') => (weight === 'bold' ? fonts.display : weight === 'mono' ? fonts.mono : fonts.body);
@@ -24,9 +29,10 @@ const fontFor = (weight: 'bold' | 'regular' | 'mono') => (weight === 'bold' ? fo
  * Renders `model` at `pxPerMm`: the outline filled with `fill`, every line in its print pen, and the texts that
  * are readable at this scale (readableTexts). Returns an `<svg role="img">` sized in px.
  */
-export function PieceSvg({ model, pxPerMm, fill, outlineBoost = 1, title }: PieceSvgProps) {
+export function PieceSvg({ model, pxPerMm, fill, outlineBoost = 1, title, thumbnail }: PieceSvgProps) {
   const [x, y, w, h] = model.viewBox;
-  const texts = useMemo(() => readableTexts(model.texts, pxPerMm), [model, pxPerMm]);
+  const texts = useMemo(() => readableTexts(model.texts, pxPerMm).filter((t) => !(thumbnail && t.style === 'info')), [model, pxPerMm, thumbnail]);
+  const lines = thumbnail ? model.lines.filter((l) => !(l.style === 'match' && l.d.endsWith('Z'))) : model.lines;
   return (
     <svg
       width={Math.max(1, w * pxPerMm)}
@@ -37,7 +43,7 @@ export function PieceSvg({ model, pxPerMm, fill, outlineBoost = 1, title }: Piec
       style={{ display: 'block', overflow: 'visible' }}
     >
       <path d={model.outlineD} fill={fill} fillRule="evenodd" stroke="none" />
-      {model.lines.map((l, i) => {
+      {lines.map((l, i) => {
         const pen = SCREEN_PENS[l.style];
         const boost = l.style === 'cut' ? outlineBoost : 1;
         return (

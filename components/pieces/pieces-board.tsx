@@ -63,6 +63,7 @@ export function PiecesBoard({ doc, selectedLabel, onSelect, compact, stretchBudg
                 fill={selected ? PIECE_FILLS.selected : over ? PIECE_FILLS.overBudget : PIECE_FILLS.plain}
                 outlineBoost={selected ? 1.8 : 1}
                 title={`Drawing of piece ${piece.label}`}
+                thumbnail
               />
               <View style={styles.caption}>
                 <Text variant="label">{piece.label}</Text>

@@ -30,7 +30,7 @@ export function CautionsSheet({ visible, onClose, cautions }: { visible: boolean
     if (visible) setTimeout(() => (closeRef.current as unknown as { focus?: () => void } | null)?.focus?.(), 50);
   }, [visible]);
   return (
-    <Modal visible={visible} transparent animationType="fade" onRequestClose={onClose}>
+    <Modal visible={visible} transparent animationType="none" onRequestClose={onClose}>
       <View style={styles.backdrop}>
         <View role="dialog" aria-modal accessibilityLabel="Safety cautions" style={styles.sheet}>
           <View style={styles.head}>

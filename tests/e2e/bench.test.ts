@@ -88,7 +88,18 @@ async function signedIn(who: keyof typeof emails, width: number, height: number)
 }
 
 const href = (section: string) => `${base}/builds/${buildId}/${section}?shop=${shopId}`;
-const shot = (page: Page, name: string) => page.screenshot({ path: path.join(artifacts, `screens-${name}.png`), fullPage: true });
+/**
+ * Saves a screenshot of the whole page. The app scrolls inside its own scroll view, so a full-page shot is taken
+ * by making the window as tall as the content for a moment.
+ */
+async function shot(page: Page, name: string): Promise<void> {
+  const size = page.viewportSize()!;
+  const tall = await page.evaluate(() => Math.max(...Array.from(document.querySelectorAll('div')).map((d) => d.scrollHeight)));
+  await page.setViewportSize({ width: size.width, height: Math.min(Math.max(size.height, tall), 6000) });
+  await page.waitForTimeout(150);
+  await page.screenshot({ path: path.join(artifacts, `screens-${name}.png`) });
+  await page.setViewportSize(size);
+}
 
 describe.skipIf(!haveDist)(
   haveDist ? 'pieces, sheets and bench pages in a browser' : 'pieces, sheets and bench pages — SKIPPED: dist/ is missing; run `npm run web:build` (npm test does it)',

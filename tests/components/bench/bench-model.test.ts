@@ -22,6 +22,9 @@ describe('piecesByThickness', () => {
       [10, 'E', 1, 0],
     ]);
     const six = groups[2].pieces;
+    // Spares (from the server's bench view) add to the copies to cut: D ×3 with 1 spare makes 4 in 2 mm.
+    const withSpares = piecesByThickness(doc, [], new Map([['D', 1]]));
+    expect([withSpares[0].copies, withSpares[0].pieces[0].spares]).toEqual([4, 1]);
     expect(six[0]).toMatchObject({ label: 'A', cut: true, notes: 2 });
     expect(six[2]).toMatchObject({ label: 'C', cut: true, shaped: false, mirroredCopies: 1, quantity: 2 });
   });
