@@ -107,6 +107,9 @@ export function StudioScreen({ buildId, shopId }: { buildId: string; shopId: str
             ← Build
           </Link>
           <PageTitle title={done ? `Studio · ${done.fileName} v${done.version}` : 'Studio'} />
+          <Text variant="title" role="heading" aria-level={1}>
+            {done ? `Studio · ${done.fileName}, version ${done.version}` : 'Studio'}
+          </Text>
           {body}
         </View>
       </ScrollView>

@@ -72,7 +72,7 @@ export default function StudioViewport(props: StudioViewportProps) {
     <Canvas
       frameloop="demand"
       dpr={[1, 2]}
-      camera={{ position: [c.x + 0.9 * r, c.y - 2.4 * r, c.z + 1.0 * r], up: [0, 0, 1], near: r / 200, far: r * 50, fov: 40 }}
+      camera={{ position: [c.x, c.y - 3 * r, c.z], up: [0, 0, 1], near: r / 200, far: r * 50, fov: 40 }}
       style={{ touchAction: 'none' }}
       aria-label={props.description}
       role="img"
@@ -84,6 +84,7 @@ export default function StudioViewport(props: StudioViewportProps) {
       <SeamLines mesh={mesh} seams={props.seams} draft={props.draft} candidates={props.candidates} lift={r * 0.002} />
       <Badges badges={props.badges} />
       <OrbitControls makeDefault target={[c.x, c.y, c.z]} enableDamping={false} />
+      <FitCamera center={c} radius={r} />
       <FirstFrameMark />
     </Canvas>
   );
@@ -231,6 +232,33 @@ function Badges({ badges }: { badges: readonly SeamBadge[] }) {
       ))}
     </>
   );
+}
+
+/** Direction the camera looks at the sculpt from: front (−y), a little to the right and above (z up). */
+const VIEW_FROM = new THREE.Vector3(0.35, -1, 0.4).normalize();
+
+/**
+ * Puts the camera where the whole bounding sphere fits the canvas, for the narrower of the vertical and
+ * horizontal fields of view (a phone's tall canvas needs more distance), once per mesh and canvas shape.
+ */
+function FitCamera({ center, radius }: { center: THREE.Vector3; radius: number }) {
+  const camera = useThree((s) => s.camera);
+  const width = useThree((s) => s.size.width);
+  const height = useThree((s) => s.size.height);
+  const invalidate = useThree((s) => s.invalidate);
+  const tall = height > width;
+  useEffect(() => {
+    if (!(camera instanceof THREE.PerspectiveCamera) || width === 0 || height === 0) return;
+    const vfov = THREE.MathUtils.degToRad(camera.fov);
+    const hfov = 2 * Math.atan(Math.tan(vfov / 2) * (width / height));
+    const distance = (1.08 * radius) / Math.sin(Math.min(vfov, hfov) / 2);
+    camera.position.copy(center).addScaledVector(VIEW_FROM, distance);
+    camera.lookAt(center);
+    camera.updateProjectionMatrix();
+    invalidate();
+    // Refit only when the canvas turns between tall and wide, not on every resize, so the maker's view stays put.
+  }, [camera, center, radius, tall, invalidate]);
+  return null;
 }
 
 function FirstFrameMark() {

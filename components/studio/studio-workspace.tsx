@@ -326,7 +326,7 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
       ? `Making pieces from seam revision ${p.seamRevision}… ${p.progress}%`
       : p.status === 'failed'
         ? `The pieces could not be made: ${p.error ?? 'unknown error'}`
-        : `${doc?.pieces.length ?? 0} pieces from seam revision ${p.seamRevision}.`;
+        : `${doc?.pieces.length ?? 0} piece${doc?.pieces.length === 1 ? '' : 's'} from seam revision ${p.seamRevision}.`;
 
   const tools = (
     <View style={styles.tools}>

@@ -1,0 +1,193 @@
+/**
+ * Browser test of the studio against the real server, worker and database: a fresh maker's build with a
+ * processed sculpt (made through the API in set-up: sign up, shop, build, OBJ upload, processing job), then in
+ * Chromium: click three points on the 3D canvas, finish the seam, see it saved, reload and find it again, see
+ * the pieces made from it; the same build at phone width with the flat pieces one toggle away. Screenshots go to
+ * tests/artifacts/ (ignored by git) for a person to look at.
+ *
+ * Expected behaviour comes from the studio brief and CONTRACTS.md (PUT seams raises the revision by one; a save
+ * queues a pattern of the sculpt); window sizes 390 × 844 and 1280 × 800 as in the app-shell test.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createStudioFixture, fetchSeams, type StudioFixture } from '../../bench/studio-api';
+
+const root = path.resolve(__dirname, '../..');
+const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
+const artifacts = path.join(root, 'tests', 'artifacts');
+
+// Flags measured on this kind of machine (shared/STACK.md).
+const chromiumArgs = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--use-angle=swiftshader',
+  '--enable-unsafe-swiftshader',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.once('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const addr = srv.address();
+      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
+    });
+  });
+}
+
+const children: ChildProcess[] = [];
+let log = '';
+let browser: Browser | null = null;
+let fixture: StudioFixture | null = null;
+let filesDir = '';
+
+function start(script: string, env: NodeJS.ProcessEnv): ChildProcess {
+  const child = spawn(process.execPath, ['--import', 'tsx', script], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  const keep = (chunk: Buffer) => {
+    log = (log + chunk.toString()).slice(-20_000);
+  };
+  child.stdout?.on('data', keep);
+  child.stderr?.on('data', keep);
+  children.push(child);
+  return child;
+}
+
+async function waitForHealth(url: string, ms: number): Promise<void> {
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    try {
+      if ((await fetch(url)).ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`${url} did not answer within ${ms} ms. Server output:\n${log.slice(-3000)}`);
+}
+
+async function openStudio(width: number, height: number): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+  const f = fixture!;
+  const context = await browser!.newContext({ viewport: { width, height } });
+  const name = f.cookie.slice(0, f.cookie.indexOf('='));
+  await context.addCookies([{ name, value: f.cookie.slice(name.length + 1).split(';')[0], url: f.base }]);
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto(`${f.base}/builds/${f.buildId}/studio?shop=${f.shopId}`);
+  await waitForMeshFrame(page);
+  return { context, page, errors };
+}
+
+async function waitForMeshFrame(page: Page): Promise<void> {
+  try {
+    await page.waitForFunction(() => performance.getEntriesByName('studio-first-mesh-frame').length > 0, null, { timeout: 60_000 });
+  } catch (e) {
+    await page.screenshot({ path: path.join(artifacts, `studio-failed-${page.viewportSize()?.width ?? 0}.png`) });
+    const text = (await page.locator('body').innerText()).slice(0, 1500);
+    throw new Error(`the studio drew no frame with the mesh within 60 s; the page says:\n${text}\nserver:\n${log.slice(-1500)}`, { cause: e });
+  }
+  // Let the demand-driven canvas settle after its first frame (camera fit, colours).
+  await page.waitForTimeout(500);
+}
+
+describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a browser — SKIPPED: dist/ is missing; run `npm run web:build`', () => {
+  beforeAll(async () => {
+    const databaseUrl = process.env.DATABASE_URL;
+    if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the browser test through `npm test`, which starts the test database.');
+    mkdirSync(artifacts, { recursive: true });
+    filesDir = mkdtempSync(path.join(tmpdir(), 'ss-studio-e2e-'));
+    const port = await freePort();
+    const env = {
+      ...process.env,
+      PORT: String(port),
+      WEB_ROOT: 'dist',
+      FILES_DIR: filesDir,
+      STORAGE: 'disk',
+      SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
+      SIGNUP_RATE_LIMIT: '1000',
+      DATABASE_URL: databaseUrl,
+    };
+    start('server/index.ts', env);
+    start('server/worker.ts', env);
+    await waitForHealth(`http://127.0.0.1:${port}/api/health`, 60_000);
+    fixture = await createStudioFixture(`http://127.0.0.1:${port}`, {}, 120_000);
+    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+  }, 200_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await Promise.all(
+      children.map(async (child) => {
+        if (child.exitCode !== null) return;
+        const exited = new Promise((r) => child.once('exit', r));
+        child.kill('SIGTERM');
+        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
+        if (child.exitCode === null) child.kill('SIGKILL');
+      }),
+    );
+    if (filesDir) rmSync(filesDir, { recursive: true, force: true });
+  });
+
+  it('draws a seam through three clicked points, saves it, keeps it after a reload and shows the pieces — 1280 px', async () => {
+    const { context, page, errors } = await openStudio(1280, 800);
+    await page.getByRole('button', { name: 'Draw seams' }).click();
+    const canvas = page.locator('canvas').first();
+    const box = (await canvas.boundingBox())!;
+    // Three points across the helm's dome, which fills the middle of the fitted view.
+    const points: [number, number][] = [
+      [0.4, 0.42],
+      [0.5, 0.34],
+      [0.6, 0.42],
+    ];
+    for (let i = 0; i < points.length; i++) {
+      await page.mouse.click(box.x + points[i][0] * box.width, box.y + points[i][1] * box.height);
+      await expect.poll(() => page.getByRole('button', { name: 'Finish seam' }).innerText(), { timeout: 15_000 }).toContain(`(${i + 1})`);
+    }
+    await page.screenshot({ path: path.join(artifacts, 'studio-1280-1-drawing.png') });
+    await page.getByRole('button', { name: 'Finish seam' }).click();
+    await expect.poll(() => page.getByText('1 seam', { exact: true }).count(), { timeout: 10_000 }).toBe(1);
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved' }).count(), { timeout: 15_000 }).toBe(1);
+
+    // The server holds one seam, revision 1, whose path runs along the mesh through the three picks.
+    const saved = await fetchSeams(fixture!);
+    expect(saved.revision).toBe(1);
+    expect(saved.seams).toHaveLength(1);
+    expect(saved.seams[0].path.length).toBeGreaterThanOrEqual(3);
+
+    await page.reload();
+    await waitForMeshFrame(page);
+    await expect.poll(() => page.getByText('1 seam', { exact: true }).count(), { timeout: 15_000 }).toBe(1);
+    // The save queued a pattern; once done the pieces board lists its pieces beside the 3D view.
+    await expect.poll(() => page.getByText(/pieces? from seam revision 1\./).count(), { timeout: 90_000 }).toBe(1);
+    await page.reload();
+    await waitForMeshFrame(page);
+    await page.screenshot({ path: path.join(artifacts, 'studio-1280-2-pieces.png') });
+    await page.keyboard.press('?');
+    await expect.poll(() => page.getByRole('dialog', { name: 'Studio keyboard shortcuts' }).isVisible(), { timeout: 5_000 }).toBe(true);
+    await page.screenshot({ path: path.join(artifacts, 'studio-1280-3-keys.png') });
+    expect(errors).toEqual([]);
+    await context.close();
+  }, 240_000);
+
+  it('shows the saved seam on a phone and switches to the flat pieces — 390 px', async () => {
+    const { context, page, errors } = await openStudio(390, 844);
+    await expect.poll(() => page.getByText('1 seam', { exact: true }).count(), { timeout: 15_000 }).toBe(1);
+    await page.screenshot({ path: path.join(artifacts, 'studio-390-1-view.png') });
+    await page.getByRole('button', { name: 'Flat pieces' }).click();
+    await expect.poll(() => page.getByRole('list', { name: 'Pattern pieces' }).count(), { timeout: 15_000 }).toBe(1);
+    await page.screenshot({ path: path.join(artifacts, 'studio-390-2-pieces.png') });
+    expect(errors).toEqual([]);
+    await context.close();
+  }, 120_000);
+});
