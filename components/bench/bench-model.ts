@@ -133,3 +133,9 @@ export function formatBevel(deg: number): string {
   const half = Math.round(deg * 2) / 2;
   return `${Number.isInteger(half) ? half.toFixed(0) : half.toFixed(1)}°`;
 }
+
+/** "1 copy", "3 copies", or "4 copies (3 + 1 spare)": how many copies of a piece to cut. */
+export function copiesText(quantity: number, spares: number): string {
+  const n = quantity + spares;
+  return `${n} ${n === 1 ? 'copy' : 'copies'}${spares > 0 ? ` (${quantity} + ${spares} spare${spares === 1 ? '' : 's'})` : ''}`;
+}

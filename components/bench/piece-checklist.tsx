@@ -7,13 +7,14 @@ import { Pressable, StyleSheet, View, type PressableStateCallbackType } from 're
 import type { ChecklistStep, ProgressPatch } from '../../hooks/use-pieces';
 import { Text } from '../ui/text';
 import { fonts, palette, radius, space } from '../ui/theme';
-import type { BenchPiece } from './bench-model';
+import { copiesText, type BenchPiece } from './bench-model';
 import { PieceNotes } from './piece-notes';
 
 const STEP_WORDS: Record<ChecklistStep, string> = { cut: 'Cut', shaped: 'Shaped', glued: 'Glued' };
 const STEPS: ChecklistStep[] = ['cut', 'shaped', 'glued'];
 
 type PressState = PressableStateCallbackType & { focused?: boolean };
+
 
 export interface PieceChecklistProps {
   shopId: string;
@@ -32,8 +33,7 @@ export function PieceChecklist({ shopId, buildId, piece, canEdit, onTick }: Piec
       <View style={styles.head}>
         <Text style={styles.label}>{piece.label}</Text>
         <Text variant="small" style={styles.grow}>
-          Cut {piece.quantity + piece.spares}
-          {piece.spares > 0 ? ` (${piece.quantity} + ${piece.spares} spare)` : ''}
+          {copiesText(piece.quantity, piece.spares)}
           {piece.mirroredCopies > 0 ? ` · ${piece.mirroredCopies} mirrored` : ''}
           {done ? ' · done' : ''}
         </Text>

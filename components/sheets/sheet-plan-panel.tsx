@@ -95,7 +95,7 @@ export function SheetPlanPanel({ shopId, buildId, pattern, canEdit, maxWidthPx }
               <Text role="cell" variant="label" style={styles.c}>{formatMoney(plan.totalCost, plan.currency ?? currency)}</Text>
             </View>
           </View>
-          <Text variant="small">{plan.sparesRule} Spares are drawn dashed; a mark ′ after a label is a mirrored copy.</Text>
+          <Text variant="small">{plan.sparesRule.charAt(0).toUpperCase() + plan.sparesRule.slice(1)} Spares are drawn dashed; a mark ′ after a label is a mirrored copy.</Text>
           <View style={styles.sheets}>
             {plan.sheets.map((s, i) => (
               <View key={i} style={styles.sheet}>

@@ -57,11 +57,12 @@ export function StockEditor({ shopId, canEdit, patternThicknesses }: { shopId: s
             {list.map((s) => (
               <View key={s.thicknessMm} role="listitem" style={styles.stockRow}>
                 <Text style={styles.thick}>{s.thicknessMm} mm</Text>
-                <Text style={styles.grow}>{s.name}</Text>
-                <Text variant="mono">
-                  {s.widthMm} × {s.heightMm} mm
-                </Text>
-                <Text variant="mono">{formatMoney(s.price, s.currency)}</Text>
+                <View style={styles.grow}>
+                  <Text>{s.name}</Text>
+                  <Text variant="mono">
+                    {s.widthMm} × {s.heightMm} mm · {formatMoney(s.price, s.currency)} a sheet
+                  </Text>
+                </View>
               </View>
             ))}
           </View>
@@ -148,7 +149,7 @@ export function StockEditor({ shopId, canEdit, patternThicknesses }: { shopId: s
 const styles = StyleSheet.create({
   gap: { gap: space.md },
   table: { borderWidth: 1, borderColor: palette.rule, borderRadius: radius.md, backgroundColor: palette.sheet },
-  stockRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'baseline', gap: space.md, padding: space.md, borderBottomWidth: 1, borderBottomColor: palette.rule },
+  stockRow: { flexDirection: 'row', alignItems: 'baseline', gap: space.md, padding: space.md, borderBottomWidth: 1, borderBottomColor: palette.rule },
   thick: { fontWeight: '800', color: palette.slate, minWidth: 56 },
   grow: { flex: 1, minWidth: 120 },
   editRow: { padding: space.md, backgroundColor: palette.sheet, borderRadius: radius.md, borderWidth: 1, borderColor: palette.rule },

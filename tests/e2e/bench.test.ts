@@ -277,6 +277,17 @@ describe.skipIf(!haveDist)(
           const piece = page.getByRole('button', { name: new RegExp(`^Piece ${first.label}, `) });
           await piece.waitFor();
           await expect(page.getByRole('button', { name: /^Piece [A-Z]+, / }).count()).resolves.toBe(doc.pieces.length);
+          // Keyboard: Enter and Space pick a focused piece (WAI-ARIA APG button pattern), a click picks too.
+          const second = page.getByRole('button', { name: new RegExp(`^Piece ${doc.pieces[1].label}, `) });
+          await second.focus();
+          await page.keyboard.press('Enter');
+          await expect(second.getAttribute('aria-pressed')).resolves.toBe('true');
+          await piece.focus();
+          await page.keyboard.press('Space');
+          await expect(piece.getAttribute('aria-pressed')).resolves.toBe('true');
+          await expect(second.getAttribute('aria-pressed')).resolves.toBe('false');
+          await piece.click();
+          await expect(piece.getAttribute('aria-pressed')).resolves.toBe('false');
           await piece.click();
           await expect(piece.getAttribute('aria-pressed')).resolves.toBe('true');
           await page.getByRole('heading', { name: `Piece ${first.label}`, level: 2 }).waitFor();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { benchStations, formatBevel, lookUpSeam, normaliseSeamQuery, piecesByThickness } from '../../../components/bench/bench-model';
+import { benchStations, copiesText, formatBevel, lookUpSeam, normaliseSeamQuery, piecesByThickness } from '../../../components/bench/bench-model';
 import { helmetLikeDoc } from '../../fixtures/pattern-docs/shape-docs';
 
 // Expected values are read off the fixture's documented contents (tests/fixtures/pattern-docs/shape-docs.ts,
@@ -85,5 +85,11 @@ describe('benchStations and formatBevel', () => {
 
   it('rounds to the half degree a blade guide can be set to', () => {
     expect([formatBevel(29.9), formatBevel(22.4), formatBevel(22.76), formatBevel(0)]).toEqual(['30°', '22.5°', '23°', '0°']);
+  });
+});
+
+describe('copiesText', () => {
+  it('counts spares into the copies to cut and says how many are spares', () => {
+    expect([copiesText(1, 0), copiesText(3, 0), copiesText(3, 1), copiesText(4, 2)]).toEqual(['1 copy', '3 copies', '4 copies (3 + 1 spare)', '6 copies (4 + 2 spares)']);
   });
 });
