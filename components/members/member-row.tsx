@@ -14,8 +14,13 @@ import { Text } from '../ui/text';
 import { palette, radius, space } from '../ui/theme';
 import { RoleChoice } from './role-choice';
 
-/** Renders `member` of shop `shopId`; `manage` (the caller is an owner) shows the controls; `isSelf` marks the caller. */
-export function MemberRow({ shopId, member, manage, isSelf }: { shopId: string; member: Member; manage: boolean; isSelf: boolean }) {
+/**
+ * Renders `member` of shop `shopId`; `manage` (the caller is an owner) shows the controls on other members'
+ * rows; `isSelf` marks the caller's own row.
+ */
+export function MemberRow({ shopId, member, manage: isOwner, isSelf }: { shopId: string; member: Member; manage: boolean; isSelf: boolean }) {
+  // Owners do not change or remove themselves here, so nobody locks themselves out by a slip; another owner can.
+  const manage = isOwner && !isSelf;
   const update = useUpdateMember(shopId);
   const remove = useRemoveMember(shopId);
   const [confirming, setConfirming] = useState(false);
@@ -86,6 +91,7 @@ export function MemberRow({ shopId, member, manage, isSelf }: { shopId: string; 
           )}
         </View>
       ) : null}
+      {isOwner && isSelf ? <Text variant="small">Another owner can change your role or remove you.</Text> : null}
       {error ? <Notice tone="error">{error}</Notice> : null}
     </View>
   );

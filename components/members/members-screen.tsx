@@ -14,7 +14,7 @@ export function MembersScreen() {
     <Screen>
       <PageTitle title="Crew and clients" />
       <Text variant="title" heading={1} style={{ marginBottom: space.lg }}>
-        {membership ? `${membership.shopName}: crew and clients` : 'Crew and clients'}
+        {membership ? membership.shopName : 'Crew and clients'}
       </Text>
       {membership ? <MembersPanel shopId={membership.shopId} /> : <Notice tone="note">You do not belong to a shop yet.</Notice>}
     </Screen>
