@@ -40,6 +40,7 @@ import { downloadRoutes } from './downloads/router';
 import { publicUrl } from './mail/public-url';
 import { createMailer, type Mailer } from './mail/send-mail';
 import { orderRoutes } from './orders/router';
+import type { CheckoutLimitOptions } from './packs/checkout-limit';
 import { PACK_COVER_JSON_LIMIT, PACK_COVER_PATH } from './packs/cover-upload';
 import { packRoutes } from './packs/router';
 import { createPaymentGateway, type PaymentGateway } from './pay/payment-gateway';
@@ -71,6 +72,8 @@ export interface AppDeps {
   mailer?: Mailer;
   /** The payment provider; defaults to its SDK on PAY_API_URL; null turns paid checkout and refunds off (503). */
   payments?: PaymentGateway | null;
+  /** Overrides the pack checkout limit from the environment; null turns it off. */
+  checkoutLimit?: CheckoutLimitOptions | null;
 }
 
 /** Returns every API route of the server (used to mount them and by the tests that walk the access table). */
@@ -104,13 +107,14 @@ function commerceRoutes(deps: AppDeps, files: FileStore): MountableRoute[] {
   const payments = deps.payments === undefined ? createPaymentGateway(deps.env) : deps.payments;
   const mailer = deps.mailer ?? createMailer(deps.env, deps.db);
   const logger = deps.logger ?? createLogger(deps.env.LOG_LEVEL, 'api');
+  const checkoutLimit = deps.checkoutLimit === undefined ? { max: deps.env.CHECKOUT_RATE_LIMIT, windowMs: deps.env.CHECKOUT_RATE_WINDOW_MINUTES * 60_000 } : deps.checkoutLimit;
   const settings = {
     publicUrl: publicUrl(deps.env),
     linkHours: deps.env.DOWNLOAD_LINK_HOURS,
     linkMaxUses: deps.env.DOWNLOAD_LINK_MAX_USES,
   };
   return [
-    ...packRoutes({ db: deps.db, files, mailer, payments, settings, logger }),
+    ...packRoutes({ db: deps.db, files, mailer, payments, settings, logger, checkoutLimit }),
     ...orderRoutes({ db: deps.db, payments }),
     ...payRoutes({ db: deps.db, payments, mailer, settings, logger }),
     ...downloadRoutes({ db: deps.db, files }),

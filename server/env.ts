@@ -64,6 +64,9 @@ const envSchema = z
     /** How long a pack's download link works, in hours, and how many file downloads it allows. */
     DOWNLOAD_LINK_HOURS: z.coerce.number().positive().default(24),
     DOWNLOAD_LINK_MAX_USES: z.coerce.number().int().min(1).default(5),
+    /** Pack checkouts (paid or free) allowed per client address per window (server/packs/checkout-limit.ts). */
+    CHECKOUT_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+    CHECKOUT_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(60),
     /** Largest sculpt upload in bytes (DESIGN.md "Sculpt in": 200 MB); tests set a small one. */
     SCULPT_MAX_UPLOAD_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),
   })

@@ -4,6 +4,7 @@ import { checkoutBody, packCreateBody, packUpdateBody } from '../../db/validatio
 import { validationError } from '../errors';
 import { defineRoute, type MountableRoute } from '../http/define-route';
 import { shopParams } from '../http/params';
+import { checkoutLimiter, type CheckoutLimitOptions } from './checkout-limit';
 import { PACK_COVER_PATH, readCoverFromRequest } from './cover-upload';
 import { changePack, checkoutPack, createPack, getPublishedPack, listPublishedPacks, listShopPacks, openPublicCover, openShopPackCover, setPackCover, type PackDeps } from './service';
 
@@ -14,8 +15,8 @@ const catalogueQuery = z.object({
   perPage: z.coerce.number().int().min(1, 'must be 1 or more').max(60, 'must be at most 60').default(24),
 });
 
-/** Returns the pack routes. */
-export function packRoutes(deps: PackDeps): MountableRoute[] {
+/** Returns the pack routes; `checkoutLimit` null turns the checkout rate limit off. */
+export function packRoutes(deps: PackDeps & { checkoutLimit: CheckoutLimitOptions | null }): MountableRoute[] {
   return [
     defineRoute({
       method: 'POST',
@@ -95,6 +96,7 @@ export function packRoutes(deps: PackDeps): MountableRoute[] {
       access: 'public',
       params: slugParams,
       body: checkoutBody,
+      before: deps.checkoutLimit ? [checkoutLimiter(deps.db, deps.checkoutLimit)] : [],
       handler: async ({ params, body }) => ({ status: 200, json: await checkoutPack(deps, params.slug, body.email) }),
     }),
   ];

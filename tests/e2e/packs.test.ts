@@ -102,6 +102,8 @@ describe.skipIf(!haveDist)(haveDist ? 'buying a pattern pack in a browser' : 'bu
         PAY_API_URL: fake.url,
         PAY_API_KEY: API_KEY,
         PAY_WEBHOOK_SECRET: SECRET,
+        // Each run checks out twice from loopback; repeated runs within the window must not hit the limit.
+        CHECKOUT_RATE_LIMIT: '10000',
       },
       stdio: ['ignore', 'pipe', 'pipe'],
     });

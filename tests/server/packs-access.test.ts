@@ -34,7 +34,8 @@ let fx: ShopFixture;
 const files = localDiskStore(mkdtempSync(path.join(tmpdir(), 'sheetsmith-packs-access-')));
 
 beforeAll(async () => {
-  ctx = await makeTestApp({ files });
+  // Every call here checks out from loopback; the limit is tested in packs.test.ts.
+  ctx = await makeTestApp({ files, env: { CHECKOUT_RATE_LIMIT: '100000' } });
   fx = await makeShopFixture(ctx);
 });
 afterAll(() => ctx.close());

@@ -36,6 +36,7 @@ let mailer: Mailer;
 let server: Server;
 let appUrl: string;
 let buildId: string;
+let limitedApp: import('express').Express;
 const files = localDiskStore(mkdtempSync(path.join(tmpdir(), 'sheetsmith-packs-')));
 /** A minimal PDF header and trailer; the download must hand back exactly these bytes. */
 const PDF_BYTES = new TextEncoder().encode('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n');
@@ -53,7 +54,10 @@ beforeAll(async () => {
   mailer = createMailer({ SMTP_URL: `smtp://127.0.0.1:${catcher.smtpPort}`, MAIL_FROM: 'Sheetsmith <no-reply@sheetsmith.example.com>' }, ctx.db);
   // helpers.ts builds an app without a mailer, so this one is built here over the same database and secret.
   const env = parseEnv({ NODE_ENV: 'test', DATABASE_URL: TEST_DATABASE_URL, WEB_ROOT: '/nonexistent-web-root', PUBLIC_URL: appUrl, PAY_API_URL: fake.url, PAY_API_KEY: API_KEY, PAY_WEBHOOK_SECRET: SECRET });
-  ctx.app = createApp({ env, pool: ctx.pool, db: ctx.db, sessionSecret: ctx.secret, logger: createLogger('silent', 'test'), signUpLimit: null, files, mailer });
+  const app = (checkoutLimit: { max: number; windowMs: number } | null) =>
+    createApp({ env, pool: ctx.pool, db: ctx.db, sessionSecret: ctx.secret, logger: createLogger('silent', 'test'), signUpLimit: null, files, mailer, checkoutLimit });
+  ctx.app = app(null);
+  limitedApp = app({ max: 2, windowMs: 60_000 });
   handler = ctx.app as unknown as typeof handler;
   fx = await makeShopFixture(ctx);
   buildId = await insertBuild(ctx.db, fx.shopId, 'Horned helm');
@@ -338,5 +342,23 @@ describe('taking a free pack', () => {
     await request(ctx.app).get(`/api/downloads/${'A'.repeat(43)}`).expect(404);
     const res = await request(ctx.app).get('/api/downloads/short').expect(404);
     expect(res.body.error.message).toMatch(/not known/);
+  });
+});
+
+describe('the checkout limit', () => {
+  it('answers 429 RATE_LIMITED after the allowed checkouts from one address, and counts addresses apart', async () => {
+    const { id, slug } = await makePack(0, 'Limit bracer');
+    await publish(id);
+    // Addresses from the IPv6 documentation prefix (RFC 3849), a random /56 per run: the count lives in the
+    // database and outlasts a run. The app trusts X-Forwarded-For from loopback (TRUST_PROXY default).
+    const net = () => `2001:db8:${Math.floor(Math.random() * 0xffff).toString(16)}:${Math.floor(Math.random() * 0xff).toString(16)}00::1`;
+    const a = net();
+    const take = (ip: string) => request(limitedApp).post(`/api/packs/${slug}/checkout`).set('X-Forwarded-For', ip).send({ email: `limit-${Date.now()}@test.example.com` });
+    expect((await take(a)).status).toBe(200);
+    expect((await take(a)).status).toBe(200);
+    const third = await take(a);
+    expect(third.status).toBe(429);
+    expect(third.body.error.code).toBe('RATE_LIMITED');
+    expect((await take(net())).status).toBe(200);
   });
 });
