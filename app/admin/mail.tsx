@@ -1,0 +1,6 @@
+/** /admin/mail: site admin view of mail. */
+import { AdminMailScreen } from '../../components/admin/admin-mail-screen';
+
+export default function AdminMailRoute() {
+  return <AdminMailScreen />;
+}
