@@ -3,7 +3,7 @@
  * the budget (with the suggested dart), and its settings — thickness, surface, quantity, mirrored — which editors
  * change (each change re-flattens the pattern) and clients only read.
  */
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import { useUpdatePieceSettings, type PieceSettingsPatch, type PieceState } from '../../hooks/use-pieces';
@@ -42,6 +42,11 @@ export function PiecePanel({ shopId, buildId, doc, label, state, canEdit, stretc
   const index = doc.pieces.findIndex((p) => p.label === label);
   const model = useMemo(() => (index >= 0 ? pieceSvgModel(doc, index) : null), [doc, index]);
   const update = useUpdatePieceSettings(shopId, buildId);
+  // On a phone the panel sits under the board: bring it into view when a piece is picked (web only).
+  const top = useRef<View>(null);
+  useEffect(() => {
+    (top.current as unknown as { scrollIntoView?: (o: object) => void } | null)?.scrollIntoView?.({ block: 'nearest', behavior: 'smooth' });
+  }, []);
   const piece = index >= 0 ? doc.pieces[index] : null;
   const thickness = state?.thicknessMm ?? piece?.thickness ?? 6;
   const surface = state?.surface ?? piece?.surface ?? 'outer';
@@ -65,6 +70,7 @@ export function PiecePanel({ shopId, buildId, doc, label, state, canEdit, stretc
 
   return (
     <Card style={styles.card}>
+      <View ref={top} />
       <Text variant="title" heading={2}>
         Piece {piece.label}
       </Text>

@@ -42,7 +42,9 @@ export function SheetPlanPanel({ shopId, buildId, pattern, canEdit, maxWidthPx }
 
   const newest = plans.data?.[0] ?? null;
   const plan = newest && newest.status === 'done' ? newest.plan : null;
-  const drawWidth = Math.min(maxWidthPx, width - 4 * space.lg);
+  // The drawings take the width the card really has (measured), not the window's.
+  const [boxWidth, setBoxWidth] = useState(0);
+  const drawWidth = Math.max(120, Math.min(maxWidthPx, boxWidth > 0 ? boxWidth : width - 4 * space.lg));
   return (
     <View style={styles.gap}>
       {canEdit ? (
@@ -95,8 +97,8 @@ export function SheetPlanPanel({ shopId, buildId, pattern, canEdit, maxWidthPx }
               <Text role="cell" variant="label" style={styles.c}>{formatMoney(plan.totalCost, plan.currency ?? currency)}</Text>
             </View>
           </View>
-          <Text variant="small">{plan.sparesRule.charAt(0).toUpperCase() + plan.sparesRule.slice(1)} Spares are drawn dashed; a mark ′ after a label is a mirrored copy.</Text>
-          <View style={styles.sheets}>
+          <Text variant="small">{plan.sparesRule.charAt(0).toUpperCase() + plan.sparesRule.slice(1).replace(/\.?$/, '.')} Spares are drawn dashed; a mark ′ after a label is a mirrored copy.</Text>
+          <View style={styles.sheets} onLayout={(e) => setBoxWidth(e.nativeEvent.layout.width)}>
             {plan.sheets.map((s, i) => (
               <View key={i} style={styles.sheet}>
                 <Text variant="label">
