@@ -143,3 +143,38 @@ export function useSetPackCover(shopId: string) {
     onSuccess: () => client.invalidateQueries({ queryKey: ['shops', shopId, 'packs'] }),
   });
 }
+
+/** An order as the shop's owner sees it (server/orders/service.ts OrderView). */
+export const orderSchema = z.object({
+  id: z.string(),
+  packTitle: z.string().optional(),
+  packSlug: z.string().optional(),
+  email: z.string(),
+  amountCents: z.number(),
+  currency: z.string(),
+  status: z.enum(['pending', 'paid', 'refunded']),
+  createdAt: z.string(),
+  paidAt: z.string().nullable(),
+  refundedAt: z.string().nullable(),
+});
+export type Order = z.infer<typeof orderSchema>;
+
+/** Returns the shop's pack orders, newest first (owners only). */
+export function useShopOrders(shopId: string) {
+  return useQuery({
+    queryKey: ['shops', shopId, 'orders'],
+    queryFn: async () => (await apiRequest('GET', `/api/shops/${shopId}/orders`, z.object({ orders: z.array(orderSchema) }))).orders,
+  });
+}
+
+/** Refunds a paid order (through the payment service when it was paid for); its download links stop working. */
+export function useRefundOrder(shopId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (orderId: string) => (await apiRequest('POST', `/api/shops/${shopId}/orders/${orderId}/refund`, z.object({ order: orderSchema }))).order,
+    onSuccess: () => {
+      void client.invalidateQueries({ queryKey: ['shops', shopId, 'orders'] });
+      void client.invalidateQueries({ queryKey: ['shops', shopId, 'packs'] });
+    },
+  });
+}

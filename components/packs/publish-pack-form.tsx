@@ -19,6 +19,7 @@ import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
 import { CoverFileInput } from './cover-file-input';
+import { PackOrders } from './pack-orders';
 
 const formSchema = z.object({
   title: packTitleField,
@@ -92,6 +93,7 @@ export function PublishPackForm({ shopId, buildId, coverDataUrl }: { shopId: str
         </View>
       ))}
       {update.error ? <Notice tone="error">{update.error.message}</Notice> : null}
+      {buildPacks.length > 0 ? <PackOrders shopId={shopId} slugs={buildPacks.map((p) => p.slug)} /> : null}
       <Text variant="label" style={styles.gap}>Print set to sell</Text>
       {done.length === 0 ? <Text variant="small">No finished print set yet.</Text> : null}
       <View style={styles.chips}>
