@@ -23,6 +23,8 @@ import { patterns } from '../../db/schema-sculpts';
 import { seedDemoBuild } from '../../db/seed-demo-build';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import { hashPassword } from '../../server/auth/passwords';
+import { runPrintSetJob } from '../../server/print-sets/print-set-job';
+import { runSheetPlanJob } from '../../server/sheet-plans/sheet-plan-job';
 import { localDiskStore } from '../../server/storage/local-disk-store';
 
 const root = path.resolve(__dirname, '../..');
@@ -252,6 +254,26 @@ describe.skipIf(!haveDist)(
       }
     });
 
+    it('empty and error states: a build without a pattern points to the studio; an unknown build says so', async () => {
+      const [bare] = await db.insert(builds).values({ shopId, name: 'Bare build' }).returning({ id: builds.id });
+      const { context, page } = await signedIn('crew', 390, 844);
+      try {
+        for (const section of ['pieces', 'sheets', 'bench']) {
+          await page.goto(`${base}/builds/${bare.id}/${section}?shop=${shopId}`);
+          await page.getByRole('heading', { name: 'No pattern yet' }).waitFor();
+          const studio = page.getByRole('link', { name: 'Open the studio to mark seams' });
+          await studio.waitFor();
+          expect(await studio.getAttribute('href')).toBe(`/builds/${bare.id}/studio?shop=${shopId}`);
+        }
+        await shot(page, 'bench-390-empty');
+        // A build id that does not exist (a fresh UUID): the API answers 404 and the page says what went wrong.
+        await page.goto(`${base}/builds/00000000-0000-4000-8000-000000000000/bench?shop=${shopId}`);
+        await page.getByRole('alert').filter({ hasText: 'This build did not open' }).waitFor();
+      } finally {
+        await context.close();
+      }
+    });
+
     it('a client sees the checklist read-only', async () => {
       const { context, page } = await signedIn('client', 390, 844);
       try {
@@ -260,6 +282,56 @@ describe.skipIf(!haveDist)(
         await box.waitFor();
         await expect(box.getAttribute('aria-disabled')).resolves.toBe('true');
         await page.getByText('the checklist is shown, not changed', { exact: false }).waitFor();
+      } finally {
+        await context.close();
+      }
+    });
+
+    it('sheets & print at 1280 px: a sheet plan and a print set go from queued to done, with download links', async () => {
+      const { context, page, errors } = await signedIn('owner', 1280, 800);
+      try {
+        await page.goto(href('sheets'));
+        await page.getByRole('table', { name: 'Sheets per thickness' }).waitFor();
+
+        // Sheet plan: the request is queued (no worker runs in this test), the page shows it waiting, then the
+        // job runs here in the test process, as a worker would, and the page picks up the result by polling.
+        const planned = page.waitForResponse((r) => r.url().endsWith('/sheet-plans') && r.request().method() === 'POST');
+        await page.getByRole('button', { name: 'Make a sheet plan' }).click();
+        const planRes = await planned;
+        expect(planRes.status()).toBe(202);
+        const { sheetPlan } = (await planRes.json()) as { sheetPlan: { id: string } };
+        await page.getByRole('progressbar', { name: 'Waiting to plan the sheets' }).waitFor();
+        await runSheetPlanJob({ db, files: localDiskStore(filesDir) }, { sheetPlanId: sheetPlan.id });
+        await page.getByRole('progressbar', { name: 'Waiting to plan the sheets' }).waitFor({ state: 'detached', timeout: 15_000 });
+        await page.getByRole('table', { name: 'Sheets per thickness' }).waitFor();
+
+        // Print set: PDF (with the bench card) and DXF on Letter paper.
+        await page.getByRole('radio', { name: 'Letter page, 8.5 × 11 in' }).click();
+        await page.getByRole('checkbox', { name: 'SVG at 1:1 for laser cutters' }).click();
+        const made = page.waitForResponse((r) => r.url().endsWith('/print-sets') && r.request().method() === 'POST');
+        await page.getByRole('button', { name: 'Make print set' }).click();
+        const madeRes = await made;
+        expect(madeRes.status()).toBe(202);
+        const body = madeRes.request().postDataJSON() as { formats: string[]; page: string; mode: string };
+        expect(body).toMatchObject({ page: 'letter', mode: 'tiled' });
+        expect([...body.formats].sort()).toEqual(['dxf', 'pdf']);
+        const { printSet } = (await madeRes.json()) as { printSet: { id: string } };
+        await page.getByRole('progressbar', { name: 'Waiting to make the print set' }).waitFor();
+        const result = await runPrintSetJob({ db, files: localDiskStore(filesDir) }, { printSetId: printSet.id });
+        const pdfLink = page.getByRole('link', { name: 'Download Print set (PDF)' });
+        await pdfLink.waitFor({ timeout: 15_000 });
+        await page.getByRole('link', { name: 'Download Bench card (PDF)' }).waitFor();
+        await page.getByRole('link', { name: 'Download Pattern (DXF, 1:1)' }).waitFor();
+        await shot(page, 'sheets-1280-print-set');
+        // The file is served from this test's file store only when this process ran the job (a worker of another
+        // suite sharing the queue could have claimed it first); then it must be a PDF (ISO 32000-1 §7.5.2 header).
+        if (result.status === 'done') {
+          const url = await pdfLink.getAttribute('href');
+          const file = await context.request.get(`${base}${url}`);
+          expect(file.status()).toBe(200);
+          expect((await file.body()).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+        }
+        expect(errors).toEqual([]);
       } finally {
         await context.close();
       }
