@@ -3,7 +3,7 @@
  * studio), a pattern being flattened (with the job's progress), a failed flattening, and the finished document.
  */
 import { Link } from 'expo-router';
-import type { ReactNode } from 'react';
+import { useRef, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import { isJobActive, usePattern, useRequeuePattern, type PatternView } from '../../hooks/use-pattern';
@@ -42,12 +42,15 @@ export interface PatternGateProps {
 }
 
 /**
- * Loads the build's pattern (polling while it is made) and renders `children` once a document exists; a running
- * re-flattening shows its progress above the (previous) content.
+ * Loads the build's pattern (polling while it is made) and renders `children` once a document exists. While a
+ * change re-flattens the pieces, the last finished pieces stay on screen under the job's progress, so a maker
+ * does not lose the board on every setting change.
  */
 export function PatternGate({ shopId, buildId, canEdit, children }: PatternGateProps) {
   const pattern = usePattern(shopId, buildId);
   const requeue = useRequeuePattern(shopId, buildId);
+  const lastDone = useRef<PatternView | null>(null);
+  if (pattern.data?.doc) lastDone.current = pattern.data;
   const studio = (
     <Link href={buildSectionHref(buildId, shopId, 'studio')} style={styles.link} accessibilityLabel="Open the studio to mark seams">
       Open the studio to mark seams →
@@ -79,6 +82,18 @@ export function PatternGate({ shopId, buildId, canEdit, children }: PatternGateP
   const active = isJobActive(p.status);
   const progress = active ? <JobProgress label={p.status === 'queued' ? 'Waiting to flatten the pieces' : 'Flattening the pieces'} progress={p.progress} stage={p.stage} /> : null;
   if (!p.doc) {
+    const previous = lastDone.current;
+    if (active && previous?.doc && previous.sculptId === p.sculptId) {
+      return (
+        <View>
+          {progress}
+          <Text variant="small" style={styles.previous}>
+            Showing the pieces as they were until the new ones are ready.
+          </Text>
+          {children(previous.doc, previous)}
+        </View>
+      );
+    }
     if (active) return progress;
     return (
       <View>
@@ -112,5 +127,6 @@ const styles = StyleSheet.create({
   fill: { height: '100%', backgroundColor: palette.slate },
   empty: { gap: space.md, padding: space.lg, borderWidth: 1, borderStyle: 'dashed', borderColor: palette.ruleStrong, borderRadius: radius.md, backgroundColor: palette.sheet },
   link: { color: palette.emberDeep, textDecorationLine: 'underline', fontSize: 16, paddingVertical: space.sm },
+  previous: { marginTop: -space.sm, marginBottom: space.lg },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md, alignItems: 'center', marginBottom: space.lg },
 });
