@@ -7,12 +7,13 @@
  *
  * Needs dist/ (npm run web:build) and DATABASE_URL (a migrated database; the bench signs up a fresh user, as the
  * browser test does). The sculpt is the engine's helmet shell at 440 × 220 segments (200,200 triangles; the
- * upload's default working resolution of 200,000 reduces it slightly).
+ * upload's default working resolution of 200,000 reduces it slightly). The server and worker it starts use the
+ * default file store, since any worker on the same database may take the sculpt's processing job.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
-import { cpus, tmpdir } from 'node:os';
+import { cpus } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
@@ -66,9 +67,8 @@ function freePort(): Promise<number> {
 }
 
 async function firstRender(databaseUrl: string): Promise<{ medianMs: number; allMs: number[]; triangles: number }> {
-  const filesDir = mkdtempSync(join(tmpdir(), 'ss-studio-bench-'));
   const port = await freePort();
-  const env = { ...process.env, PORT: String(port), WEB_ROOT: 'dist', FILES_DIR: filesDir, STORAGE: 'disk', SIGNUP_RATE_LIMIT: '1000', DATABASE_URL: databaseUrl, LOG_LEVEL: 'warn' };
+  const env = { ...process.env, PORT: String(port), WEB_ROOT: 'dist', STORAGE: 'disk', SIGNUP_RATE_LIMIT: '1000', DATABASE_URL: databaseUrl, LOG_LEVEL: 'warn' };
   const children: ChildProcess[] = ['server/index.ts', 'server/worker.ts'].map((s) =>
     spawn(process.execPath, ['--import', 'tsx', s], { cwd: root, env, stdio: 'ignore' }),
   );
@@ -102,7 +102,6 @@ async function firstRender(databaseUrl: string): Promise<{ medianMs: number; all
   } finally {
     await browser.close();
     for (const c of children) c.kill('SIGTERM');
-    rmSync(filesDir, { recursive: true, force: true });
   }
 }
 

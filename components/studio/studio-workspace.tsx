@@ -445,7 +445,9 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
             <ToolButton label="3D view" on={phoneView === '3d'} onPress={() => setPhoneView('3d')} />
             <ToolButton label="Flat pieces" on={phoneView === 'pieces'} onPress={() => setPhoneView('pieces')} />
           </View>
-          {phoneView === '3d' ? view3d : <View style={styles.phoneBoard}>{board}</View>}
+          {/* The 3D view stays mounted while the pieces show: its WebGL context and badge overlays live on. */}
+          <View style={phoneView === '3d' ? undefined : styles.hidden}>{view3d}</View>
+          {phoneView === 'pieces' ? <View style={styles.phoneBoard}>{board}</View> : null}
         </>
       )}
     </View>
@@ -488,5 +490,6 @@ const styles = StyleSheet.create({
   sideBoard: { flex: 2, borderLeftWidth: 1, borderLeftColor: palette.rule, paddingLeft: space.sm },
   phoneSwitch: { flexDirection: 'row', gap: space.xs },
   phoneBoard: { minHeight: 200 },
+  hidden: { display: 'none' },
   budget: { flexDirection: 'row', alignItems: 'center', gap: space.xxs },
 });
