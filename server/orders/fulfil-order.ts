@@ -3,9 +3,9 @@
  * and use limit from the settings) and a receipt e-mail carrying the link; a refunded order loses its links.
  * Used by the webhook (paid packs), by checkout (free packs) and by the refund route.
  */
+import type { Logger } from 'pino';
 import type { DbExecutor } from '../../db/client';
 import { newDownloadToken } from '../downloads/download-token';
-import type { Logger } from 'pino';
 import { receiptMail } from '../mail/templates/receipt-mail';
 import type { PackMailer } from '../packs/pack-mails';
 import { insertDownloadLink, markOrderRefunded, revokeOrderLinks, type OrderRow } from './queries';

@@ -26,17 +26,31 @@ export async function claimPaymentEvent(db: DbExecutor, id: string, type: string
 }
 
 /**
- * Marks the pending order with checkout session `sessionId` paid and returns it; null when there is no such
- * order or it is no longer pending (already paid by an earlier event, or refunded).
+ * Marks the pending order with checkout session `sessionId` paid and returns it. When no order has that session
+ * (the server stopped between opening the session and recording it), the pending order `orderId` from the
+ * session's metadata is taken if it has no session yet, and the session is recorded on it. Returns null when
+ * there is no such order or it is no longer pending (already paid by an earlier event, or refunded).
  */
-export async function markSessionOrderPaid(db: DbExecutor, sessionId: string, paymentIntentId: string | null): Promise<OrderRow | null> {
+export async function markSessionOrderPaid(db: DbExecutor, sessionId: string, orderId: string | null, paymentIntentId: string | null): Promise<OrderRow | null> {
+  const paid = { status: 'paid' as const, paidAt: sql`now()`, paymentIntentId, checkoutSessionId: sessionId };
   const rows = await db
     .update(orders)
-    .set({ status: 'paid', paidAt: sql`now()`, paymentIntentId })
+    .set(paid)
     .where(and(eq(orders.checkoutSessionId, sessionId), eq(orders.status, 'pending')))
     .returning();
-  return rows[0] ?? null;
+  if (rows[0]) return rows[0];
+  if (!orderId || !UUID.test(orderId)) return null;
+  const [bySession] = await db.select({ id: orders.id }).from(orders).where(eq(orders.checkoutSessionId, sessionId));
+  if (bySession) return null;
+  const fallback = await db
+    .update(orders)
+    .set(paid)
+    .where(and(eq(orders.id, orderId), isNull(orders.checkoutSessionId), eq(orders.status, 'pending')))
+    .returning();
+  return fallback[0] ?? null;
 }
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** Marks a paid order refunded and returns it; null when it is not paid (pending, or refunded already). */
 export async function markOrderRefunded(db: DbExecutor, orderId: string): Promise<OrderRow | null> {

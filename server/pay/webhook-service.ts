@@ -3,17 +3,17 @@
  * transaction as its effect, so a replayed event fulfils once; a second, different event for a session whose
  * order is already paid changes nothing either (the order is no longer pending).
  */
+import { eq } from 'drizzle-orm';
 import type { Logger } from 'pino';
 import type { Db } from '../../db/client';
+import { packs } from '../../db/schema-packs';
 import { issueDownloadLink, refundOrderRecord, sendReceipt, type FulfilSettings, type PendingReceipt } from '../orders/fulfil-order';
 import { claimPaymentEvent, markSessionOrderPaid, selectOrderByIntent } from '../orders/queries';
 import type { PackMailer } from '../packs/pack-mails';
-import { packs } from '../../db/schema-packs';
-import { eq } from 'drizzle-orm';
 import type { PaymentEvent } from './payment-gateway';
 
 /** What an event did, for the answer to the provider and for tests. */
-export type EventOutcome = 'replayed' | 'fulfilled' | 'already-paid' | 'refunded' | 'not-paid' | 'no-order' | 'ignored';
+export type EventOutcome = 'replayed' | 'fulfilled' | 'no-pending-order' | 'refunded' | 'not-paid' | 'no-order' | 'ignored';
 
 /** Applies a verified event and returns what it did. Receipts are mailed after the transaction commits. */
 export async function handlePaymentEvent(
@@ -26,8 +26,8 @@ export async function handlePaymentEvent(
     if (!(await claimPaymentEvent(tx, event.id, typeName))) return 'replayed';
     if (event.type === 'checkout.session.completed') {
       if (!event.paid) return 'not-paid';
-      const order = await markSessionOrderPaid(tx, event.sessionId, event.paymentIntentId);
-      if (!order) return 'already-paid';
+      const order = await markSessionOrderPaid(tx, event.sessionId, event.orderId, event.paymentIntentId);
+      if (!order) return 'no-pending-order';
       receipt = await issueDownloadLink(tx, order, deps.settings);
       return 'fulfilled';
     }

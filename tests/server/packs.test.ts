@@ -251,12 +251,26 @@ describe('buying a paid pack', () => {
     const event = { id: `evt_replay_${Date.now()}`, object: 'event', type: 'checkout.session.completed', data: { object: { id: sessionId, object: 'checkout.session', payment_status: 'paid', payment_intent: 'pi_replay', metadata: {} } } };
     expect((await postEvent(event).expect(200)).body.outcome).toBe('fulfilled');
     expect((await postEvent(event).expect(200)).body.outcome).toBe('replayed');
-    expect((await postEvent({ ...event, id: `${event.id}_b` }).expect(200)).body.outcome).toBe('already-paid');
+    expect((await postEvent({ ...event, id: `${event.id}_b` }).expect(200)).body.outcome).toBe('no-pending-order');
     const [order] = await ctx.db.select().from(orders).where(eq(orders.email, email));
     expect(await ctx.db.select().from(downloadLinks).where(eq(downloadLinks.orderId, order.id))).toHaveLength(1);
     await mailTo(email, 'Replay helm');
     await new Promise((r) => setTimeout(r, 150));
     expect(catcher.messages().filter((m) => m.to.includes(email))).toHaveLength(1);
+  });
+
+  it('pays an order by its id in the session metadata when the session was never recorded on it', async () => {
+    const { id, slug } = await makePack(400, 'Metadata helm');
+    await publish(id);
+    const email = `meta-${Date.now()}@test.example.com`;
+    const [pack] = (await request(ctx.app).get(`/api/shops/${fx.shopId}/packs`).set('Cookie', owner())).body.packs.filter((p: { slug: string }) => p.slug === slug);
+    const [order] = await ctx.db.insert(orders).values({ packId: pack.id, email, amountCents: 400, currency: 'eur' }).returning();
+    const event = { id: `evt_meta_${Date.now()}`, type: 'checkout.session.completed', data: { object: { id: `cs_meta_${Date.now()}`, payment_status: 'paid', payment_intent: 'pi_meta', metadata: { orderId: order.id } } } };
+    expect((await postEvent(event).expect(200)).body.outcome).toBe('fulfilled');
+    await mailTo(email, 'Metadata helm');
+    // An id that is not a UUID is ignored rather than failing the webhook (the provider would retry for ever).
+    const junk = { ...event, id: `${event.id}_junk`, data: { object: { ...event.data.object, id: 'cs_other', metadata: { orderId: 'not-a-uuid' } } } };
+    expect((await postEvent(junk).expect(200)).body.outcome).toBe('no-pending-order');
   });
 
   it('answers 400 to a bad or missing signature and acts on nothing', async () => {
@@ -267,7 +281,7 @@ describe('buying a paid pack', () => {
     const none = await request(ctx.app).post('/api/pay/webhook').set('Content-Type', 'application/json').send(JSON.stringify(event));
     expect(none.status).toBe(400);
     // The event id was not recorded, so a correctly signed delivery later is still acted on.
-    expect((await postEvent(event).expect(200)).body.outcome).toBe('already-paid');
+    expect((await postEvent(event).expect(200)).body.outcome).toBe('no-pending-order');
   });
 
   it('an expired link answers 410 with the date', async () => {
