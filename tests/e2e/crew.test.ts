@@ -196,6 +196,8 @@ describe.skipIf(!haveDist)(haveDist ? 'crew and clients in a browser' : 'crew an
         // A client looks but does not change: no rename, no delete.
         await expect(client.getByRole('button', { name: /^Rename/ }).count()).resolves.toBe(0);
         await expect(client.getByRole('button', { name: /^Delete/ }).count()).resolves.toBe(0);
+        // The build page says print sets are not shared (the build page's own wording, H-builds).
+        await client.getByText(/has not opened print sets to you/).waitFor();
         await shot(client, '4-client-build');
         // Print sets stay closed to the client until the owner allows them.
         const closed = await clientContext.request.get(`${base}/api/shops/${shopId}/builds/${buildId}/print-sets`);

@@ -164,6 +164,22 @@ describe('accepting', () => {
     expect(list.body.invitations.map((i: { email: string }) => i.email)).not.toContain(person.email);
   });
 
+  it('resends an expired invitation with a fresh 7-day link that works', async () => {
+    const person = await insertPerson(ctx.db, 'renewed');
+    const { res } = await invite(person.email, 'editor');
+    await ctx.db.update(invitations).set({ expiresAt: sql`now() - interval '1 day'` }).where(eq(invitations.id, res.body.invitation.id));
+    const list = await request(ctx.crewApp).get(`/api/shops/${fx.shopId}/invitations`).set('Cookie', fx.people.owner.cookie).expect(200);
+    expect(list.body.invitations.find((i: { id: string }) => i.id === res.body.invitation.id).status).toBe('expired');
+    const before = ctx.catcher.messages().length;
+    const resent = await request(ctx.crewApp).post(`/api/shops/${fx.shopId}/invitations/${res.body.invitation.id}/resend`).set('Cookie', fx.people.owner.cookie).expect(200);
+    expect(resent.body.invitation.status).toBe('pending');
+    expect((Date.parse(resent.body.invitation.expiresAt) - Date.now()) / 86_400_000).toBeCloseTo(7, 2);
+    await expect.poll(() => ctx.catcher.messages().length).toBe(before + 1);
+    const token = tokenFromMail(ctx.catcher.messages()[0].text, INVITE_LINK);
+    const accepted = await request(ctx.crewApp).post(`/api/invitations/${token}/accept`).set('Cookie', await sessionCookie(ctx.key, person.id)).expect(200);
+    expect(accepted.body.role).toBe('editor');
+  });
+
   it('accepts a link used twice at the same moment only once', async () => {
     const person = await insertPerson(ctx.db, 'twice');
     const { token } = await invite(person.email, 'viewer');

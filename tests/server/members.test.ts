@@ -40,7 +40,7 @@ async function addMember(role: 'owner' | 'editor' | 'viewer', tag: string) {
 }
 
 describe('GET /api/shops/:shopId/members', () => {
-  it('lists owners first with role and print-set visibility; e-mails only for the owner', async () => {
+  it('lists owners first with role and print-set visibility; e-mails only for owners and site admins', async () => {
     const asOwner = await request(ctx.crewApp).get(`/api/shops/${fx.shopId}/members`).set('Cookie', fx.people.owner.cookie).expect(200);
     const roles = asOwner.body.members.map((m: { role: string }) => m.role);
     expect(roles[0]).toBe('owner');
@@ -49,6 +49,8 @@ describe('GET /api/shops/:shopId/members', () => {
     expect(viewer).toMatchObject({ role: 'viewer', canSeePrintSets: false, email: fx.people.viewer.email });
     const editor = asOwner.body.members.find((m: { userId: string }) => m.userId === fx.people.editor.id);
     expect(editor.canSeePrintSets).toBe(true);
+    const asAdmin = await request(ctx.crewApp).get(`/api/shops/${fx.shopId}/members`).set('Cookie', fx.people.admin.cookie).expect(200);
+    expect(asAdmin.body.members.every((m: { email?: string }) => typeof m.email === 'string')).toBe(true);
     for (const persona of ['editor', 'viewer'] as const) {
       const res = await request(ctx.crewApp).get(`/api/shops/${fx.shopId}/members`).set('Cookie', fx.people[persona].cookie).expect(200);
       for (const m of res.body.members) expect(m).not.toHaveProperty('email');
