@@ -16,7 +16,7 @@ export function passwordResetRoutes(deps: { db: Db; mailer: Mailer; baseUrl: str
       body: passwordResetRequestBody,
       before: deps.limit ? resetRequestLimiters(deps.db, deps.limit) : [],
       handler: async ({ body, req }) => {
-        await requestPasswordReset(deps, body.email, req.log);
+        requestPasswordReset(deps, body.email, req.log);
         return { status: 202, json: { message: RESET_REQUESTED_MESSAGE } };
       },
     }),
