@@ -97,6 +97,15 @@ export function useRetryJob() {
   });
 }
 
+/** Refunds a paid order (any shop's); refreshes the order lists when done. */
+export function useRefundOrder() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => apiRequest('POST', `/api/admin/orders/${encodeURIComponent(id)}/refund`, z.object({ order: z.object({ id: z.string(), status: z.string() }) })),
+    onSettled: () => client.invalidateQueries({ queryKey: ['admin', 'orders'] }),
+  });
+}
+
 /** The local mail catcher's messages, newest first; refreshed every 5 s. */
 export function useCaughtMail() {
   return useQuery({ queryKey: ['admin', 'mail'], queryFn: () => apiRequest('GET', '/api/admin/mail', mailList), refetchInterval: 5_000, retry: false });

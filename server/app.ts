@@ -91,7 +91,7 @@ export function allRoutes(deps: AppDeps, cookieSecure: (req: Request) => boolean
     ...buildRoutes({ db: deps.db, files }),
     ...printSetRoutes({ db: deps.db, files, jobs: deps.jobs ?? null }),
     ...auditRoutes(deps.db),
-    ...adminRoutes({ db: deps.db, pool: deps.pool, env: deps.env, jobAdmin: deps.jobAdmin ?? null }),
+    ...adminRoutes({ db: deps.db, pool: deps.pool, env: deps.env, jobAdmin: deps.jobAdmin ?? null, payments: deps.payments === undefined ? createPaymentGateway(deps.env) : deps.payments }),
     ...sculptRoutes({ db: deps.db, files, jobs: deps.jobs ?? null, maxUploadBytes: deps.env.SCULPT_MAX_UPLOAD_BYTES }),
     ...patternRoutes({ db: deps.db, files, jobs: deps.jobs ?? null }),
     ...pieceRoutes({ db: deps.db, jobs: deps.jobs ?? null }),

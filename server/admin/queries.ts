@@ -146,3 +146,9 @@ export async function selectJob(pool: Pool, id: string): Promise<{ name: string;
     throw err;
   }
 }
+
+/** Returns the shop an order's pack belongs to, or null when there is no such order. */
+export async function selectOrderShopId(db: DbExecutor, orderId: string): Promise<string | null> {
+  const [row] = await db.select({ shopId: packs.shopId }).from(orders).innerJoin(packs, eq(packs.id, orders.packId)).where(eq(orders.id, orderId));
+  return row?.shopId ?? null;
+}

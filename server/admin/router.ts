@@ -7,8 +7,9 @@ import type { Env } from '../env';
 import { validationError } from '../errors';
 import { defineRoute, type MountableRoute } from '../http/define-route';
 import type { JobAdmin } from '../jobs/job-admin';
+import type { PaymentGateway } from '../pay/payment-gateway';
 import { JOB_STATES } from './queries';
-import { listCaughtMail, listJobs, listOrders, listShops, listUsers, retryJob } from './service';
+import { listCaughtMail, listJobs, listOrders, listShops, listUsers, refundOrderAsAdmin, retryJob } from './service';
 
 export interface AdminDeps {
   db: Db;
@@ -16,6 +17,8 @@ export interface AdminDeps {
   env: Pick<Env, 'MAIL_CATCHER_URL'>;
   /** Retries failed jobs; null where the server runs without a queue (retry then answers 503). */
   jobAdmin: JobAdmin | null;
+  /** Refunds payments; null where payments are not set up (refunds of paid orders then answer 503). */
+  payments: PaymentGateway | null;
 }
 
 const paging = {
@@ -27,6 +30,7 @@ const usersQuery = z.object(paging);
 const ordersQuery = z.object({ ...paging, status: z.enum(['pending', 'paid', 'refunded']).optional() });
 const jobsQuery = z.object({ ...paging, state: z.enum(JOB_STATES).optional(), name: z.string().max(200).optional() });
 const jobParams = z.object({ id: z.string().uuid('must be a job id (a UUID)') });
+const orderParams = z.object({ id: z.string().uuid('must be an order id (a UUID)') });
 
 /** Returns the request's query string checked by `schema`; a bad value answers 400 VALIDATION naming the parameter. */
 function parseQuery<T>(schema: z.ZodType<T>, req: Request): T {
@@ -68,6 +72,16 @@ export function adminRoutes(deps: AdminDeps): MountableRoute[] {
         const q = parseQuery(ordersQuery, req);
         const page = await listOrders(deps.db, { status: q.status ?? null, q: orNull(q.q) }, q.page, q.pageSize);
         return { status: 200, json: { orders: page.items, page: page.page, pageSize: page.pageSize, total: page.total } };
+      },
+    }),
+    defineRoute({
+      method: 'POST',
+      path: '/api/admin/orders/:id/refund',
+      access: 'admin',
+      handler: async ({ req }) => {
+        const parsed = orderParams.safeParse(req.params);
+        if (!parsed.success) throw validationError(parsed.error, 'path');
+        return { status: 200, json: { order: await refundOrderAsAdmin(deps.db, deps.payments, parsed.data.id) } };
       },
     }),
     defineRoute({

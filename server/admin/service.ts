@@ -3,7 +3,9 @@ import type { Pool } from 'pg';
 import type { Db } from '../../db/client';
 import { AppError, notFound } from '../errors';
 import type { JobAdmin } from '../jobs/job-admin';
-import { selectJob, selectJobs, selectOrders, selectShops, selectUsersWithShopCounts, type JobState, type Page } from './queries';
+import { refundShopOrder, type OrderView } from '../orders/service';
+import type { PaymentGateway } from '../pay/payment-gateway';
+import { selectJob, selectJobs, selectOrderShopId, selectOrders, selectShops, selectUsersWithShopCounts, type JobState, type Page } from './queries';
 
 /** One page of a list and where it sits in the whole. */
 export interface PageOf<T> {
@@ -101,6 +103,17 @@ export async function listOrders(db: Db, filter: { status: AdminOrderView['statu
     shop: { id: r.shopId, name: r.shopName },
   }));
   return { items, page, pageSize, total };
+}
+
+/**
+ * Refunds order `orderId` of whichever shop sold it, by the shop's own refund rules (server/orders/service.ts:
+ * the payment is refunded, the order marked refunded, its download links revoked). Throws 404 NOT_FOUND for an
+ * unknown order and the refund's own errors (409 NOT_PAID, 503 PAYMENT_UNAVAILABLE, 502).
+ */
+export async function refundOrderAsAdmin(db: Db, payments: PaymentGateway | null, orderId: string): Promise<OrderView> {
+  const shopId = await selectOrderShopId(db, orderId);
+  if (!shopId) throw notFound('Order');
+  return refundShopOrder(db, payments, shopId, orderId);
 }
 
 /** Returns the error text of a job's output: pg-boss stores a thrown Error as { message, stack }, a timeout as { value: { message } }. */

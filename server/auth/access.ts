@@ -54,6 +54,7 @@ export const ROUTE_ACCESS: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/admin/users', access: 'admin' },
   { method: 'GET', path: '/api/admin/shops', access: 'admin' },
   { method: 'GET', path: '/api/admin/orders', access: 'admin' },
+  { method: 'POST', path: '/api/admin/orders/:id/refund', access: 'admin' },
   { method: 'GET', path: '/api/admin/jobs', access: 'admin' },
   { method: 'POST', path: '/api/admin/jobs/:id/retry', access: 'admin' },
   { method: 'GET', path: '/api/admin/mail', access: 'admin' },

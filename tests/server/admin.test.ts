@@ -4,12 +4,13 @@
  * database), a real pg-boss queue on it, and the mail catcher started in-process on random ports.
  */
 import { randomUUID } from 'node:crypto';
+import { eq } from 'drizzle-orm';
 import nodemailer from 'nodemailer';
 import type PgBoss from 'pg-boss';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { memberships, printSets, shops } from '../../db/schema-core';
-import { orders, packs } from '../../db/schema-packs';
+import { downloadLinks, orders, packs } from '../../db/schema-packs';
 import { createApp } from '../../server/app';
 import { parseEnv } from '../../server/env';
 import { pgBossJobAdmin } from '../../server/jobs/job-admin';
@@ -127,6 +128,37 @@ describe('admin lists', () => {
     const bad = await request(app).get('/api/admin/orders?status=lost').set('Cookie', admin());
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toEqual(['status']);
+  });
+
+  it('refunds any shop\'s paid order by that shop\'s rules (links revoked), and refuses a pending or unknown one', async () => {
+    const buildId = await insertBuild(ctx.db, fx.otherShopId, 'Bracer');
+    const doc = helmetLikeDoc();
+    const [ps] = await ctx.db
+      .insert(printSets)
+      .values({ shopId: fx.otherShopId, buildId, name: 'Bracer', status: 'done', formats: ['pdf'], page: 'a4', mode: 'tiled', pieceCount: doc.pieces.length, pattern: doc })
+      .returning({ id: printSets.id });
+    const [pack] = await ctx.db
+      .insert(packs)
+      .values({ shopId: fx.otherShopId, printSetId: ps.id, slug: `bracer-${tag}`, title: `Bracer ${tag}`, description: 'Free bracer', licence: 'Personal use', priceCents: 0, status: 'published' })
+      .returning({ id: packs.id });
+    const [free] = await ctx.db.insert(orders).values({ packId: pack.id, email: `free-${tag}@buyer.example.com`, amountCents: 0, currency: 'eur', status: 'paid', paidAt: new Date() }).returning({ id: orders.id });
+    await ctx.db.insert(downloadLinks).values({ orderId: free.id, tokenHash: `hash-${tag}`, expiresAt: new Date(Date.now() + 86_400_000), maxUses: 5 });
+    const [pending] = await ctx.db.insert(orders).values({ packId: pack.id, email: `wait-${tag}@buyer.example.com`, amountCents: 0, currency: 'eur', status: 'pending' }).returning({ id: orders.id });
+
+    // The site admin belongs to neither shop's staff for this (the fixture admin is no member of the other shop).
+    const res = await request(app).post(`/api/admin/orders/${free.id}/refund`).set('Cookie', admin());
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.order).toMatchObject({ id: free.id, status: 'refunded' });
+    const [link] = await ctx.db.select({ revokedAt: downloadLinks.revokedAt }).from(downloadLinks).where(eq(downloadLinks.orderId, free.id));
+    expect(link.revokedAt).not.toBeNull();
+
+    const notPaid = await request(app).post(`/api/admin/orders/${pending.id}/refund`).set('Cookie', admin());
+    expect(notPaid.status).toBe(409);
+    expect(notPaid.body.error.code).toBe('NOT_PAID');
+    const unknown = await request(app).post(`/api/admin/orders/${randomUUID()}/refund`).set('Cookie', admin());
+    expect(unknown.status).toBe(404);
+    expect(unknown.body.error.message).toBe('Order was not found');
+    expect((await request(app).post(`/api/admin/orders/${free.id}/refund`).set('Cookie', fx.people.otherOwner.cookie)).status).toBe(403);
   });
 
   it('refuses every admin route to a shop owner who is not a site admin (403) and to anonymous callers (401)', async () => {
