@@ -20,6 +20,7 @@ import { createDb, createPool } from '../../db/client';
 import { buildPieces } from '../../db/schema-bench';
 import { builds, memberships, shops, users } from '../../db/schema-core';
 import { patterns } from '../../db/schema-sculpts';
+import { runMigrations } from '../../db/migrate';
 import { seedDemoBuild } from '../../db/seed-demo-build';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import { hashPassword } from '../../server/auth/passwords';
@@ -55,6 +56,8 @@ let serverLog = '';
 let base = '';
 let browser: Browser | null = null;
 let filesDir = '';
+let ownDatabase = '';
+let ownDatabaseUrl = '';
 let pool: ReturnType<typeof createPool> | null = null;
 let db: ReturnType<typeof createDb>;
 const people = { owner: '', crew: '', client: '' };
@@ -112,7 +115,20 @@ describe.skipIf(!haveDist)(
       if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the browser test through `npm test`, which starts the test database.');
       mkdirSync(artifacts, { recursive: true });
       filesDir = mkdtempSync(path.join(tmpdir(), 'ss-bench-e2e-'));
-      pool = createPool(databaseUrl, 4);
+      // A database of this file's own: the jobs it queues (pattern, sheet plan, print set) are run here, in the
+      // test process, and a worker of another browser suite sharing the database's queue must not take them
+      // (it would look for this build's files in its own file store).
+      const admin = new URL(databaseUrl);
+      ownDatabase = `ss_bench_e2e_${Date.now().toString(36)}_${process.pid}`;
+      admin.pathname = '/postgres';
+      const adminPool = createPool(admin.toString(), 1);
+      await adminPool.query(`CREATE DATABASE ${ownDatabase}`);
+      await adminPool.end();
+      const own = new URL(databaseUrl);
+      own.pathname = `/${ownDatabase}`;
+      ownDatabaseUrl = own.toString();
+      pool = createPool(ownDatabaseUrl, 4);
+      await runMigrations(pool);
       db = createDb(pool);
       const stamp = `${Date.now().toString(36)}${Math.floor(Math.random() * 1e6).toString(36)}`;
       const hash = await hashPassword(PASSWORD);
@@ -145,7 +161,7 @@ describe.skipIf(!haveDist)(
           FILES_DIR: filesDir,
           STORAGE: 'disk',
           SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
-          DATABASE_URL: databaseUrl,
+          DATABASE_URL: ownDatabaseUrl,
         },
         stdio: ['ignore', 'pipe', 'pipe'],
       });
@@ -169,6 +185,13 @@ describe.skipIf(!haveDist)(
       }
       await pool?.end();
       if (filesDir) rmSync(filesDir, { recursive: true, force: true });
+      if (ownDatabase && process.env.DATABASE_URL) {
+        const admin = new URL(process.env.DATABASE_URL);
+        admin.pathname = '/postgres';
+        const adminPool = createPool(admin.toString(), 1);
+        await adminPool.query(`DROP DATABASE IF EXISTS ${ownDatabase} WITH (FORCE)`);
+        await adminPool.end();
+      }
     });
 
     it('bench at 390 px: seam look-up, a tick that survives a reload, another member\'s tick, a refused tick rolled back, cautions', async () => {
@@ -324,14 +347,12 @@ describe.skipIf(!haveDist)(
         await page.getByRole('link', { name: 'Download Bench card (PDF)' }).waitFor();
         await page.getByRole('link', { name: 'Download Pattern (DXF, 1:1)' }).waitFor();
         await shot(page, 'sheets-1280-print-set');
-        // The file is served from this test's file store only when this process ran the job (a worker of another
-        // suite sharing the queue could have claimed it first); then it must be a PDF (ISO 32000-1 §7.5.2 header).
-        if (result.status === 'done') {
-          const url = await pdfLink.getAttribute('href');
-          const file = await context.request.get(`${base}${url}`);
-          expect(file.status()).toBe(200);
-          expect((await file.body()).subarray(0, 5).toString('latin1')).toBe('%PDF-');
-        }
+        // The file the link serves is a PDF (ISO 32000-1 §7.5.2: a file starts with the header %PDF-).
+        expect(result.status).toBe('done');
+        const url = await pdfLink.getAttribute('href');
+        const file = await context.request.get(`${base}${url}`);
+        expect(file.status()).toBe(200);
+        expect((await file.body()).subarray(0, 5).toString('latin1')).toBe('%PDF-');
         expect(errors).toEqual([]);
       } finally {
         await context.close();
@@ -403,12 +424,10 @@ describe.skipIf(!haveDist)(
         await shot(page, 'pieces-1280-reflattening');
         const [queued] = await db.select({ id: patterns.id }).from(patterns).where(eq(patterns.buildId, buildId)).orderBy(desc(patterns.createdAt)).limit(1);
         const result = await runPatternJob({ db, files: localDiskStore(filesDir) }, { patternId: queued.id });
-        // When this process ran the job (a worker of another suite sharing the queue could claim it first), the
-        // finished pattern gives piece A the 4 mm chosen: the board's name for it says so.
-        if (result.status === 'done') {
-          await page.getByRole('button', { name: new RegExp(`^Piece ${label}, 4 mm`) }).waitFor({ timeout: 15_000 });
-          await page.getByRole('progressbar').waitFor({ state: 'detached' });
-        }
+        // The finished pattern gives the piece the 4 mm chosen: the board's name for it says so.
+        expect(result.status).toBe('done');
+        await page.getByRole('button', { name: new RegExp(`^Piece ${label}, 4 mm`) }).waitFor({ timeout: 15_000 });
+        await page.getByRole('progressbar').waitFor({ state: 'detached' });
         expect(errors).toEqual([]);
       } finally {
         await context.close();
