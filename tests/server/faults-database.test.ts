@@ -44,7 +44,9 @@ const clusterEnv = () => ({ ...process.env, SHEETSMITH_PGDATA: dataDir, SHEETSMI
 
 /** Starts (or restarts) the throwaway cluster and makes sure database `ss_fault_test` exists. */
 async function startCluster(): Promise<void> {
-  await run('bash', ['scripts/postgres.sh', 'ss_fault_test'], { env: clusterEnv(), timeout: 90_000 });
+  // fds 8 and 9 are closed first: npm test holds its run lock on fd 8, and a postmaster that inherited it would
+  // keep the lock after this test (see scripts/test.sh).
+  await run('bash', ['-c', 'exec 8>&- 9>&-; exec bash scripts/postgres.sh ss_fault_test'], { env: clusterEnv(), timeout: 90_000 });
 }
 
 /** Stops the throwaway cluster the way a crash would (immediate mode: no clean shutdown of sessions). */
