@@ -79,7 +79,7 @@ export function fillFaceColours(
       c = palette.get(piece) ?? pieceColour(piece);
       palette.set(piece, c);
     }
-    if (selected !== null && piece !== selected) c = [0.55 * c[0] + 0.3, 0.55 * c[1] + 0.3, 0.55 * c[2] + 0.3];
+    if (selected !== null && piece !== selected) c = [0.25 * c[0] + 0.6, 0.25 * c[1] + 0.6, 0.25 * c[2] + 0.6];
     for (let k = 0; k < 3; k++) {
       out[9 * f + 3 * k] = c[0];
       out[9 * f + 3 * k + 1] = c[1];

@@ -5,12 +5,16 @@
  */
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 
-/** One badge: the seam's number, its mean bevel (degrees from square), outside or inside corner, and a point in mm. */
+/**
+ * One badge: the seam's number, its mean bevel (degrees from square), outside or inside corner, a point in mm and
+ * the surface's unit normal there (so the view can hide badges on the far side of the model).
+ */
 export interface SeamBadge {
   label: string;
   bevelDeg: number;
   convex: boolean;
   at: [number, number, number];
+  normal: [number, number, number];
 }
 
 /**
@@ -40,10 +44,21 @@ export function seamBadges(
     if (list) list.push(h);
     else borders.set(key, [h]);
   }
-  const mid = (h: number): [number, number, number] => {
+  const mid = (h: number): { at: [number, number, number]; normal: [number, number, number] } => {
     const a = triangles[h];
     const b = triangles[h - (h % 3) + ((h % 3) + 1) % 3];
-    return [0, 1, 2].map((k) => (positions[3 * a + k] + positions[3 * b + k]) / 2) as [number, number, number];
+    const at = [0, 1, 2].map((k) => (positions[3 * a + k] + positions[3 * b + k]) / 2) as [number, number, number];
+    const n = [0, 0, 0];
+    for (const f of [Math.floor(h / 3), Math.floor(twin[h] / 3)]) {
+      const [p, q, r] = [triangles[3 * f], triangles[3 * f + 1], triangles[3 * f + 2]];
+      const u = [0, 1, 2].map((k) => positions[3 * q + k] - positions[3 * p + k]);
+      const w = [0, 1, 2].map((k) => positions[3 * r + k] - positions[3 * p + k]);
+      n[0] += u[1] * w[2] - u[2] * w[1];
+      n[1] += u[2] * w[0] - u[0] * w[2];
+      n[2] += u[0] * w[1] - u[1] * w[0];
+    }
+    const l = Math.hypot(n[0], n[1], n[2]) || 1;
+    return { at, normal: [n[0] / l, n[1] / l, n[2] / l] };
   };
   const borderOf = (labels: readonly string[]): string | null => {
     const [x, y] = labels.map((l) => indexOf.get(l) ?? -1);
@@ -60,11 +75,11 @@ export function seamBadges(
     const nth = seamsOnBorder.get(key) ?? 0;
     seamsOnBorder.set(key, nth + 1);
     const points = edges.map(mid);
-    const spread = [0, 1, 2].map((k) => Math.max(...points.map((p) => p[k])) - Math.min(...points.map((p) => p[k])));
+    const spread = [0, 1, 2].map((k) => Math.max(...points.map((p) => p.at[k])) - Math.min(...points.map((p) => p.at[k])));
     const axis = spread.indexOf(Math.max(...spread));
-    points.sort((p, q) => p[axis] - q[axis]);
-    const at = points[Math.min(points.length - 1, Math.floor(((nth + 0.5) / total) * points.length))];
-    badges.push({ label: seam.label, bevelDeg: seam.bevel.mean, convex: seam.convex, at });
+    points.sort((p, q) => p.at[axis] - q.at[axis]);
+    const { at, normal } = points[Math.min(points.length - 1, Math.floor(((nth + 0.5) / total) * points.length))];
+    badges.push({ label: seam.label, bevelDeg: seam.bevel.mean, convex: seam.convex, at, normal });
   }
   return badges;
 }

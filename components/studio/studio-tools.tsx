@@ -12,6 +12,19 @@ import type { SeamSaveStatus } from './seam-saver';
 type PressState = PressableStateCallbackType & { focused?: boolean; hovered?: boolean };
 
 /**
+ * A keyboard-focus ring for the studio's tools drawn by the browser's :focus-visible, which clears itself when a
+ * focused tool becomes disabled (a pressable's own `focused` state can stay set when no blur event comes).
+ */
+let focusStyleAdded = false;
+function addFocusStyle(): void {
+  if (focusStyleAdded || typeof document === 'undefined') return;
+  focusStyleAdded = true;
+  const style = document.createElement('style');
+  style.textContent = `[data-studio-tool]:focus-visible { outline: 2px solid ${palette.ember}; outline-offset: 2px; }`;
+  document.head.appendChild(style);
+}
+
+/**
  * A compact tool button. With `on` set it is a toggle (announced as pressed or not); `hint` is the keyboard
  * key shown beside the label on wide screens.
  */
@@ -30,8 +43,11 @@ export function ToolButton({
   hint?: string;
   accessibilityLabel?: string;
 }) {
+  addFocusStyle();
+  const webData = { dataSet: { studioTool: 'true' } } as object;
   return (
     <Pressable
+      {...webData}
       role="button"
       accessibilityLabel={accessibilityLabel ?? label}
       aria-pressed={on === undefined ? undefined : on}
@@ -43,7 +59,6 @@ export function ToolButton({
         on && styles.toolOn,
         disabled && styles.toolOff,
         s.pressed && styles.toolPressed,
-        s.focused && styles.focus,
       ]}
     >
       <Text style={[styles.toolText, on && styles.toolTextOn]}>{label}</Text>
@@ -165,7 +180,6 @@ const styles = StyleSheet.create({
   toolOn: { backgroundColor: palette.bench, borderColor: palette.bench },
   toolOff: { opacity: 0.45 },
   toolPressed: { backgroundColor: palette.sheetSunk },
-  focus: { outlineColor: palette.ember, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 } as object,
   toolText: { fontFamily: fonts.bodyStrong, fontSize: 14, color: palette.ink },
   toolTextOn: { color: palette.onBench },
   hint: { fontFamily: fonts.mono, fontSize: 11, color: palette.inkFaint },

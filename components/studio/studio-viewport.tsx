@@ -203,11 +203,26 @@ function SeamLines({
  * solid for an inside one.
  */
 function Badges({ badges }: { badges: readonly SeamBadge[] }) {
+  const refs = useRef<(HTMLDivElement | null)[]>([]);
+  const toCamera = useMemo(() => new THREE.Vector3(), []);
+  // Badges on the far side of the model would show through it: hide those whose surface faces away from the camera.
+  useFrame(({ camera }) => {
+    badges.forEach((b, i) => {
+      const el = refs.current[i];
+      if (!el) return;
+      toCamera.set(camera.position.x - b.at[0], camera.position.y - b.at[1], camera.position.z - b.at[2]);
+      const facing = toCamera.x * b.normal[0] + toCamera.y * b.normal[1] + toCamera.z * b.normal[2] > 0;
+      el.style.visibility = facing ? 'visible' : 'hidden';
+    });
+  });
   return (
     <>
-      {badges.map((b) => (
+      {badges.map((b, i) => (
         <Html key={b.label} position={b.at} center zIndexRange={[20, 0]} style={{ pointerEvents: 'none' }}>
           <div
+            ref={(el) => {
+              refs.current[i] = el;
+            }}
             aria-label={`Seam ${b.label}, bevel ${b.bevelDeg.toFixed(0)} degrees, ${b.convex ? 'outside' : 'inside'} corner`}
             style={{
               display: 'flex',

@@ -3,13 +3,14 @@
  * undo/redo, mirror, crease suggestions, suggested pieces, stretch map), the save line, and the flat pieces beside
  * the 3D view on a wide screen or one toggle away on a phone. Loaded lazily with three.js.
  */
+import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Platform, ScrollView, StyleSheet, useWindowDimensions, View } from 'react-native';
 import type { SeamLine } from '../../db/schema-sculpts';
 import type { WorkingMesh } from '../../geometry/io/working-mesh';
 import { buildTwins } from '../../geometry/mesh/half-edges';
 import { usePieceSelection } from '../../hooks/use-piece-selection';
-import { usePattern, usePatternFaces, isJobActive } from '../../hooks/use-pattern';
+import { isJobActive, patternQueryKey, usePattern, usePatternFaces } from '../../hooks/use-pattern';
 import { putSeams, seamsPath, type SeamSetView } from '../../hooks/use-seams';
 import { useWideLayout } from '../../hooks/use-wide-layout';
 import { PiecesBoard } from '../pieces/pieces-board';
@@ -71,6 +72,7 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
   const [showHelp, setShowHelp] = useState(false);
   const [phoneView, setPhoneView] = useState<'3d' | 'pieces'>('3d');
   const { selectedLabel, select } = usePieceSelection();
+  const queryClient = useQueryClient();
 
   const engine = useMemo<SeamEngine>(() => startSeamEngine(mesh.positions, mesh.triangles), [mesh]);
   useEffect(() => () => engine.dispose(), [engine]);
@@ -87,6 +89,8 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
           delayMs: SAVE_DELAY_MS,
           put: (base, draft) => putSeams(seamsPath(shopId, buildId, sculptId), base, draft),
           onStatus: setSaveStatus,
+          // A save queues a new pattern: ask for it now, so its progress is polled until the pieces are made.
+          onSaved: () => void queryClient.invalidateQueries({ queryKey: patternQueryKey(shopId, buildId) }),
           onConflict: (current) => {
             setDrawing({ picks: [], path: [] });
             setHistory(resetHistory(draftOf(current)));

@@ -198,9 +198,16 @@ describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a brows
     await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved' }).count(), { timeout: 15_000 }).toBe(1);
     expect((await fetchSeams(fixture!)).seams.length).toBe(Number(accepted.split(' ')[0]));
 
+    // The save queued a pattern of the accepted seams: its pieces colour the model and carry seam badges.
+    await expect.poll(() => page.getByText(/^([2-9]|\d\d+) pieces from seam revision \d+\.$/).count(), { timeout: 120_000 }).toBe(1);
+    await waitForMeshFrame(page);
+    await page.getByRole('button', { name: /^Piece A\b/ }).first().click();
+    await page.waitForTimeout(500);
+    await page.screenshot({ path: path.join(artifacts, 'studio-1280-5-pieces.png') });
+
     await page.keyboard.press('?');
     await expect.poll(() => page.getByRole('dialog', { name: 'Studio keyboard shortcuts' }).isVisible(), { timeout: 5_000 }).toBe(true);
-    await page.screenshot({ path: path.join(artifacts, 'studio-1280-5-keys.png') });
+    await page.screenshot({ path: path.join(artifacts, 'studio-1280-6-keys.png') });
     expect(errors).toEqual([]);
     await context.close();
   }, 240_000);
