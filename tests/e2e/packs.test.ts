@@ -133,6 +133,8 @@ describe.skipIf(!haveDist)(haveDist ? 'buying a pattern pack in a browser' : 'bu
     it(`a visitor buys the demo pack, gets the mail and downloads the PDF — ${vp.width} px`, async () => {
       const context = await browser!.newContext({ viewport: vp, acceptDownloads: true });
       const page = await context.newPage();
+      // The machine is shared; under load a page or the bundle can take a while.
+      page.setDefaultTimeout(45_000);
       const pageErrors: string[] = [];
       page.on('pageerror', (e) => pageErrors.push(e.message));
       const shot = (name: string) => page.screenshot({ path: path.join(artifacts, `packs-${vp.width}-${name}.png`), fullPage: true });
@@ -189,6 +191,6 @@ describe.skipIf(!haveDist)(haveDist ? 'buying a pattern pack in a browser' : 'bu
       } finally {
         await context.close();
       }
-    });
+    }, 150_000);
   }
 });
