@@ -3,7 +3,7 @@
  * scripts/test.sh), an in-process app, and people with roles made directly in the database.
  */
 import { randomBytes, randomUUID } from 'node:crypto';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { Express } from 'express';
 import type { Pool } from 'pg';
 import { createDb, createPool, type Db } from '../../db/client';
@@ -126,6 +126,14 @@ export async function makeShopFixture(ctx: TestContext): Promise<ShopFixture> {
     people[persona] = { ...person, cookie: await sessionCookie(ctx.key, person.id) };
   }
   return { shopId: shop.id, otherShopId: other.id, people };
+}
+
+/**
+ * Sets a member's print-set grant (memberships.canSeePrintSets): a viewer (commission client) sees a build's
+ * print sets only when the owner granted it (issue 6, "no print sets unless granted").
+ */
+export async function grantPrintSets(db: Db, shopId: string, userId: string, granted = true): Promise<void> {
+  await db.update(memberships).set({ canSeePrintSets: granted }).where(and(eq(memberships.shopId, shopId), eq(memberships.userId, userId)));
 }
 
 /** Inserts a build into a shop directly and returns its id. */

@@ -10,7 +10,7 @@ import { printSets } from '../../db/schema';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import { PATTERN_LIMITS } from '../../server/print-sets/pattern-doc-schema';
 import { piece, rectangle, regularPolygon } from '../fixtures/pattern-docs/shape-docs';
-import { insertBuild, makeShopFixture, makeTestApp, type ShopFixture, type TestContext } from './helpers';
+import { grantPrintSets, insertBuild, makeShopFixture, makeTestApp, type ShopFixture, type TestContext } from './helpers';
 
 let ctx: TestContext;
 let fx: ShopFixture;
@@ -18,6 +18,8 @@ let buildId: string;
 beforeAll(async () => {
   ctx = await makeTestApp();
   fx = await makeShopFixture(ctx);
+  // A client reads print sets only with the owner's grant (issue 6); the checks below read as such a client.
+  await grantPrintSets(ctx.db, fx.shopId, fx.people.viewer.id);
   buildId = await insertBuild(ctx.db, fx.shopId, 'Validation build');
 });
 afterAll(async () => {

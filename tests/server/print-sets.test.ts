@@ -19,7 +19,7 @@ import { createLogger } from '../../server/logger';
 import { PRINT_SET_JOB } from '../../server/print-sets/print-set-job';
 import { localDiskStore } from '../../server/storage/local-disk-store';
 import { helmetLikeDoc, piece, rectangle } from '../fixtures/pattern-docs/shape-docs';
-import { insertBuild, makeShopFixture, makeTestApp, TEST_DATABASE_URL, type ShopFixture, type TestContext } from './helpers';
+import { grantPrintSets, insertBuild, makeShopFixture, makeTestApp, TEST_DATABASE_URL, type ShopFixture, type TestContext } from './helpers';
 
 let ctx: TestContext;
 let fx: ShopFixture;
@@ -34,6 +34,8 @@ beforeAll(async () => {
   const files = localDiskStore(filesDir);
   ctx = await makeTestApp({ jobs: pgBossJobSender(boss), files });
   fx = await makeShopFixture(ctx);
+  // The viewer here is a client the owner shared print sets with; without the grant they are refused (below).
+  await grantPrintSets(ctx.db, fx.shopId, fx.people.viewer.id);
   buildId = await insertBuild(ctx.db, fx.shopId, 'Hornet visor');
   await registerWorkers(boss, { db: ctx.db, files }, logger, {
     schedule: false,
@@ -229,10 +231,23 @@ describe('print sets', () => {
     expect(Object.keys(traversal.body.error.fields)).toEqual(['fileName']);
   });
 
-  it('lets a viewer read and download but not create', async () => {
+  it('lets a granted viewer read and download but not create', async () => {
     const doc: PatternDoc = { units: 'mm', pieces: [piece('S', rectangle(50, 50))], seams: [], warnings: [] };
     const res = await request(ctx.app).post(base()).set('Cookie', fx.people.viewer.cookie).send({ pattern: doc, formats: ['svg'] });
     expect(res.status).toBe(403);
     expect(res.body.error.message).toBe('Your role in this shop (viewer) does not allow this; it needs editor');
+    expect((await request(ctx.app).get(base()).set('Cookie', fx.people.viewer.cookie)).status).toBe(200);
+  });
+
+  it('refuses a viewer the owner has not granted print sets, and lets them in once granted', async () => {
+    await grantPrintSets(ctx.db, fx.shopId, fx.people.viewer.id, false);
+    try {
+      const refused = await request(ctx.app).get(base()).set('Cookie', fx.people.viewer.cookie);
+      expect(refused.status).toBe(403);
+      expect(refused.body.error).toEqual({ code: 'FORBIDDEN', message: 'The shop owner has not shared print sets with you; ask them to allow it in the members list' });
+    } finally {
+      await grantPrintSets(ctx.db, fx.shopId, fx.people.viewer.id);
+    }
+    expect((await request(ctx.app).get(base()).set('Cookie', fx.people.viewer.cookie)).status).toBe(200);
   });
 });
