@@ -3,30 +3,52 @@
  * While the job is orphaned nothing half-made is served (the print set stays "running" with no files and its
  * downloads answer 409 NOT_READY); pg-boss's maintenance in a second worker expires the orphaned job
  * (JOB_EXPIRE_SECONDS, JOB_MAINTENANCE_SECONDS set short here), it is retried, finishes, and the files download
- * whole. The workers are real child processes running server/worker.ts against the test database.
+ * whole. The workers are real child processes running server/worker.ts. The test runs in a database of its
+ * own (made next to the test database and dropped afterwards): its workers take every job type and shorten
+ * the queue's expiry, which must not touch jobs that other test files queue at the same time.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { randomBytes } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import type PgBoss from 'pg-boss';
+import { Client } from 'pg';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createDb, createPool } from '../../db/client';
+import { runMigrations } from '../../db/migrate';
 import { printSets } from '../../db/schema-core';
+import { createApp } from '../../server/app';
+import { parseEnv } from '../../server/env';
 import { pgBossJobSender } from '../../server/jobs/job-sender';
 import { startQueue, stopQueue } from '../../server/jobs/queue';
 import { createLogger } from '../../server/logger';
-import { PRINT_SET_JOB, PRINT_SET_QUEUE } from '../../server/print-sets/print-set-job';
+import { sessionKey } from '../../server/auth/session';
+import { PRINT_SET_JOB } from '../../server/print-sets/print-set-job';
 import { localDiskStore } from '../../server/storage/local-disk-store';
 import { manyPieceDoc } from '../fixtures/pattern-docs/shape-docs';
-import { insertBuild, makeShopFixture, makeTestApp, TEST_DATABASE_URL, type ShopFixture, type TestContext } from './helpers';
+import { insertBuild, makeShopFixture, TEST_DATABASE_URL, type ShopFixture, type TestContext } from './helpers';
 
 /** Short enough to keep the test brief, long enough for the render to finish on a loaded 2-core machine. */
 const EXPIRE_SECONDS = 12;
 
+const dbName = `ss_faultw_${randomBytes(4).toString('hex')}_test`;
+const DB_URL = TEST_DATABASE_URL.replace(/\/[^/]+$/, `/${dbName}`);
 let ctx: TestContext;
 let fx: ShopFixture;
+
+/** Runs one statement on the cluster's maintenance database (CREATE/DROP DATABASE cannot run inside another). */
+async function onCluster(sql: string): Promise<void> {
+  const client = new Client({ connectionString: TEST_DATABASE_URL.replace(/\/[^/]+$/, '/postgres') });
+  await client.connect();
+  try {
+    await client.query(sql);
+  } finally {
+    await client.end();
+  }
+}
 let boss: PgBoss;
 let filesDir: string;
 const workers: ChildProcess[] = [];
@@ -37,7 +59,7 @@ function startWorker(): Promise<ChildProcess> {
     env: {
       ...process.env,
       NODE_ENV: 'test',
-      DATABASE_URL: TEST_DATABASE_URL,
+      DATABASE_URL: DB_URL,
       FILES_DIR: filesDir,
       STORAGE: 'disk',
       LOG_LEVEL: 'info',
@@ -76,10 +98,26 @@ function killed(child: ChildProcess): Promise<void> {
 
 beforeAll(async () => {
   filesDir = mkdtempSync(path.join(tmpdir(), 'sheetsmith-fault-worker-'));
-  boss = await startQueue(TEST_DATABASE_URL, createLogger('silent', 'test'), { supervise: false, schedule: false });
-  ctx = await makeTestApp({ jobs: pgBossJobSender(boss), files: localDiskStore(filesDir) });
+  await onCluster(`CREATE DATABASE ${dbName}`);
+  const pool = createPool(DB_URL, 5);
+  await runMigrations(pool);
+  const db = createDb(pool);
+  boss = await startQueue(DB_URL, createLogger('silent', 'test'), { supervise: false, schedule: false });
+  const secret = randomBytes(32).toString('base64url');
+  const app = createApp({
+    env: parseEnv({ NODE_ENV: 'test', DATABASE_URL: DB_URL, WEB_ROOT: '/nonexistent-web-root' }),
+    pool,
+    db,
+    sessionSecret: secret,
+    logger: createLogger('silent', 'test'),
+    signUpLimit: null,
+    payments: null,
+    jobs: pgBossJobSender(boss),
+    files: localDiskStore(filesDir),
+  });
+  ctx = { app, pool, db, secret, key: sessionKey(secret), close: () => pool.end() };
   fx = await makeShopFixture(ctx);
-});
+}, 120_000);
 
 afterAll(async () => {
   for (const w of workers) {
@@ -88,10 +126,9 @@ afterAll(async () => {
       await new Promise((r) => w.once('exit', r));
     }
   }
-  // Later tests on this database get the print-set queue's normal expiry back.
-  await boss.updateQueue(PRINT_SET_JOB, { name: PRINT_SET_JOB, ...PRINT_SET_QUEUE });
-  await stopQueue(boss, 5_000);
-  await ctx.close();
+  await stopQueue(boss, 5_000).catch(() => undefined);
+  await ctx?.close();
+  await onCluster(`DROP DATABASE IF EXISTS ${dbName} WITH (FORCE)`);
 });
 
 describe('a worker killed during a job', () => {
