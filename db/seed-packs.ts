@@ -22,7 +22,7 @@ export const DEMO_PACKS: readonly DemoPack[] = [
     slug: 'beetle-knight-helmet',
     title: 'Beetle knight helmet',
     priceCents: 1200,
-    description: 'Crown, brow and cheek guards for a beetle-shell knight helmet, sized for a 58 cm head. Cut from 6 mm foam with 2 mm overlays; every seam is numbered and its bevel printed on both pieces.',
+    description: 'The full shell of a beetle-shell knight helmet in 6 mm foam: crown, brow and cheek pieces, every seam numbered and its bevel printed on both pieces, with a sheet plan and a bench card.',
   },
   {
     slug: 'beetle-knight-bracer-sampler',

@@ -6,7 +6,7 @@
  *
  *   node --import tsx db/seed.ts [--migrate] [--print-sign-ins]
  */
-import { sql } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { hashPassword } from '../server/auth/passwords';
 import { createDb, createPool, DEFAULT_DATABASE_URL, type Db, type DbExecutor } from './client';
 import { runMigrations } from './migrate';
@@ -14,7 +14,8 @@ import { seedDemoBuild } from './seed-demo-build';
 import { parseEnv } from '../server/env';
 import type { FileStore } from '../server/storage/file-store';
 import { createFileStore } from '../server/storage/create-file-store';
-import { auditLog, builds, memberships, shops, users } from './schema';
+import { auditLog, builds, memberships, patterns, shops, users } from './schema';
+import { DEMO_PACKS, seedDemoPacks } from './seed-packs';
 import type { Role } from './validation';
 
 export const DEMO_SHOP_NAME = 'Tallow Lane Props';
@@ -83,10 +84,23 @@ export async function seedDemoIfEmpty(db: Db, files?: FileStore): Promise<boolea
     await tx.insert(auditLog).values(
       made.map((b) => ({ shopId: shop.id, userId: owner, action: 'build.create', target: `build:${b.id}`, detail: { name: b.name, seeded: true } })),
     );
-    return { shopId: shop.id, buildId: made.find((b) => b.name === DEMO_BUILD_NAMES[0])!.id, ownerId: owner, crewId: idOf(DEMO_ACCOUNTS[1].email) };
+    return { shopId: shop.id, buildId: made.find((b) => b.name === DEMO_BUILD_NAMES[0])!.id, secondBuildId: made.find((b) => b.name === DEMO_BUILD_NAMES[1])!.id, ownerId: owner, crewId: idOf(DEMO_ACCOUNTS[1].email) };
   });
   if (!seeded) return false;
-  if (files) await seedDemoBuild(db, files, seeded);
+  if (files) {
+    await seedDemoBuild(db, files, seeded);
+    // The paid demo pack sells the helmet's own pattern, so a visitor who buys it prints what the demo shows.
+    const [done] = await db
+      .select({ doc: patterns.doc })
+      .from(patterns)
+      .where(and(eq(patterns.buildId, seeded.buildId), eq(patterns.status, 'done')))
+      .orderBy(desc(patterns.createdAt))
+      .limit(1);
+    const [helmetPack, samplerPack] = DEMO_PACKS;
+    await seedDemoPacks(db, files, seeded, { pattern: done?.doc ?? undefined, demos: [helmetPack] });
+    // The free sampler is a small pattern of its own, kept on the second demo build so each pack's files match it.
+    await seedDemoPacks(db, files, { ...seeded, buildId: seeded.secondBuildId }, { demos: [samplerPack] });
+  }
   return true;
 }
 
