@@ -16,7 +16,7 @@ export const stockSheetSchema = z.object({
 });
 export type StockSheet = z.infer<typeof stockSheetSchema>;
 
-const stockListSchema = z.object({ stock: z.array(stockSheetSchema.passthrough()) });
+const stockListSchema = z.object({ stock: z.array(stockSheetSchema.extend({ source: z.enum(['shop', 'default']).optional() })) });
 
 export const stockQueryKey = (shopId: string) => ['shops', shopId, 'stock'] as const;
 const stockPath = (shopId: string) => `/api/shops/${encodeURIComponent(shopId)}/stock`;

@@ -4,14 +4,13 @@
  */
 import { useState } from 'react';
 import { Pressable, StyleSheet, View, type PressableStateCallbackType } from 'react-native';
-import type { ChecklistStep, ProgressPatch } from '../../hooks/use-pieces';
+import { CHECKLIST_STEPS, type ChecklistStep, type ProgressPatch } from '../../hooks/use-pieces';
 import { Text } from '../ui/text';
 import { fonts, palette, radius, space } from '../ui/theme';
 import { copiesText, type BenchPiece } from './bench-model';
 import { PieceNotes } from './piece-notes';
 
 const STEP_WORDS: Record<ChecklistStep, string> = { cut: 'Cut', shaped: 'Shaped', glued: 'Glued' };
-const STEPS: ChecklistStep[] = ['cut', 'shaped', 'glued'];
 
 type PressState = PressableStateCallbackType & { focused?: boolean };
 
@@ -50,7 +49,7 @@ export function PieceChecklist({ shopId, buildId, piece, canEdit, onTick }: Piec
         </Pressable>
       </View>
       <View style={styles.steps}>
-        {STEPS.map((step) => {
+        {CHECKLIST_STEPS.map((step) => {
           const checked = piece[step];
           return (
             <Pressable

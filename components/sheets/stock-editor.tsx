@@ -47,7 +47,7 @@ export function StockEditor({ shopId, canEdit, patternThicknesses }: { shopId: s
   if (!editing) {
     return (
       <View style={styles.gap}>
-        {list.some((s) => (s as { source?: string }).source === 'default') ? (
+        {list.some((s) => s.source === 'default') ? (
           <Text variant="small">Common sheet sizes with example prices, used until the shop sets its own stock.</Text>
         ) : null}
         {list.length === 0 ? (
