@@ -204,17 +204,15 @@ function SeamLines({
  */
 function Badges({ badges }: { badges: readonly SeamBadge[] }) {
   const refs = useRef<(HTMLDivElement | null)[]>([]);
-  const toCamera = useMemo(() => new THREE.Vector3(), []);
+  const get = useThree((s) => s.get);
   // Badges on the far side of the model would show through it: hide those whose surface faces away from the camera.
-  useFrame(({ camera }) => {
-    badges.forEach((b, i) => {
-      const el = refs.current[i];
-      if (!el) return;
-      toCamera.set(camera.position.x - b.at[0], camera.position.y - b.at[1], camera.position.z - b.at[2]);
-      const facing = toCamera.x * b.normal[0] + toCamera.y * b.normal[1] + toCamera.z * b.normal[2] > 0;
-      el.style.visibility = facing ? 'visible' : 'hidden';
-    });
-  });
+  const show = (el: HTMLDivElement | null, b: SeamBadge) => {
+    if (!el) return;
+    const c = get().camera.position;
+    const facing = (c.x - b.at[0]) * b.normal[0] + (c.y - b.at[1]) * b.normal[1] + (c.z - b.at[2]) * b.normal[2] > 0;
+    el.style.visibility = facing ? 'visible' : 'hidden';
+  };
+  useFrame(() => badges.forEach((b, i) => show(refs.current[i], b)));
   return (
     <>
       {badges.map((b, i) => (
@@ -222,6 +220,7 @@ function Badges({ badges }: { badges: readonly SeamBadge[] }) {
           <div
             ref={(el) => {
               refs.current[i] = el;
+              show(el, b);
             }}
             aria-label={`Seam ${b.label}, bevel ${b.bevelDeg.toFixed(0)} degrees, ${b.convex ? 'outside' : 'inside'} corner`}
             style={{

@@ -332,7 +332,7 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
         ? `The pieces could not be made: ${p.error ?? 'unknown error'}`
         : `${doc?.pieces.length ?? 0} piece${doc?.pieces.length === 1 ? '' : 's'} from seam revision ${p.seamRevision}.`;
 
-  const tools = (
+  const seamTools = (
     <View style={styles.tools}>
       {canEdit ? (
         <ToolGroup label="Seam tools">
@@ -354,6 +354,10 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
           <Text variant="small">You can look and pick pieces; your role does not allow changing seams.</Text>
         </ToolGroup>
       )}
+    </View>
+  );
+  const moreTools = (
+    <View style={styles.tools}>
       <ToolGroup label="Suggestions and views">
         {canEdit ? (
           <>
@@ -400,7 +404,8 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
 
   return (
     <View style={styles.wrap}>
-      {tools}
+      {seamTools}
+      {wide ? moreTools : null}
       <View style={styles.statusRow}>
         {canEdit ? <SaveLine status={saveStatus} /> : null}
         <Text variant="small" accessibilityLabel={`${seamCount} seams`}>
@@ -452,6 +457,8 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
           {/* The 3D view stays mounted while the pieces show: its WebGL context and badge overlays live on. */}
           <View style={phoneView === '3d' ? undefined : styles.hidden}>{view3d}</View>
           {phoneView === 'pieces' ? <View style={styles.phoneBoard}>{board}</View> : null}
+          {/* On a phone the model comes first; suggestions and views sit under it. */}
+          {moreTools}
         </>
       )}
     </View>
