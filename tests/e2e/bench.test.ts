@@ -194,7 +194,7 @@ describe.skipIf(!haveDist)(
       }
     });
 
-    it('bench at 390 px: seam look-up, a tick that survives a reload, another member\'s tick, a refused tick rolled back, cautions', async () => {
+    it('bench at 390 px: seam look-up, a tick that survives a reload, another member\'s tick, a refused tick rolled back, notes, cautions', async () => {
       const { context, page, errors } = await signedIn('crew', 390, 844);
       try {
         await page.goto(href('bench'));
@@ -256,6 +256,16 @@ describe.skipIf(!haveDist)(
         await page.getByRole('alert').filter({ hasText: 'The checklist could not be saved.' }).waitFor();
         await expect(refused.getAttribute('aria-checked')).resolves.toBe('false');
         await page.unroute(`**/pieces/${third}/progress`);
+
+        // Notes: the seeded note on the first piece is listed; an empty note is refused with the schema's message;
+        // a new note is added and listed.
+        await page.getByRole('button', { name: new RegExp(`^Notes on piece ${label} `) }).click();
+        await page.getByText('Crown piece: heat-form the dome before gluing the side seams.').waitFor();
+        await page.getByRole('button', { name: `Add note to piece ${label}` }).click();
+        await page.getByText('write something in the note').waitFor();
+        await page.getByRole('textbox', { name: `New note on piece ${label}` }).fill('Left edge needs a second pass with the blade.');
+        await page.getByRole('button', { name: `Add note to piece ${label}` }).click();
+        await page.getByRole('list', { name: `Notes on piece ${label}` }).getByText('Left edge needs a second pass with the blade.').waitFor();
 
         // The cautions, one tap away: ventilation, respirator for organic vapours, and the safety data sheet.
         await page.getByRole('button', { name: 'Safety cautions' }).click();
@@ -328,12 +338,26 @@ describe.skipIf(!haveDist)(
       }
     });
 
-    it('sheets & print at 1280 px: a sheet plan and a print set go from queued to done, with download links', async () => {
+    it('sheets & print at 1280 px: stock edit, a sheet plan and a print set from queued to done, download links', async () => {
       const { context, page, errors } = await signedIn('owner', 1280, 800);
       try {
         await page.goto(href('sheets'));
         await page.getByRole('table', { name: 'Sheets per thickness' }).waitFor();
         await shot(page, 'sheets-1280');
+
+        // Stock: a width that is not a number is named by sheet and field; a new price is saved and shown.
+        await page.getByRole('button', { name: 'Edit stock sheets' }).click();
+        const sixIndex = 3; // the seed lists 2, 4, 6 and 10 mm sheets, so 6 mm is sheet 3
+        await page.getByRole('textbox', { name: `Sheet ${sixIndex} width, mm` }).fill('wide');
+        await page.getByRole('textbox', { name: `Sheet ${sixIndex} price` }).fill('12,5');
+        await page.getByRole('button', { name: 'Save stock' }).click();
+        await page.getByText(`Sheet ${sixIndex} width: "wide" is not a number.`).waitFor();
+        await page.getByRole('textbox', { name: `Sheet ${sixIndex} width, mm` }).fill('1000');
+        const stockSaved = page.waitForResponse((r) => r.url().endsWith('/stock') && r.request().method() === 'PUT');
+        await page.getByRole('button', { name: 'Save stock' }).click();
+        expect((await stockSaved).status()).toBe(200);
+        // en-GB style is not assumed: the reader's locale formats the money, so only the digits are checked.
+        await page.getByRole('list', { name: 'Stock sheets' }).getByText(/12\.50/).waitFor();
 
         // Sheet plan: the request is queued (no worker runs in this test), the page shows it waiting, then the
         // job runs here in the test process, as a worker would, and the page picks up the result by polling.
