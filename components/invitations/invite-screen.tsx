@@ -33,7 +33,6 @@ function Summary({ invitation }: { invitation: InvitationPreview }) {
   return (
     <View style={styles.summary}>
       <Text variant="overline">Invitation</Text>
-      <Text variant="heading">{invitation.shopName}</Text>
       <Text>
         {`${invitation.invitedByName ?? 'The shop owner'} invites ${invitation.email} as ${roleLabels[invitation.role].name.toLowerCase()}, to ${ROLE_DOES[invitation.role]}.`}
       </Text>

@@ -172,6 +172,12 @@ describe.skipIf(!haveDist)(haveDist ? 'crew and clients in a browser' : 'crew an
         const link = /(http:\/\/127\.0\.0\.1:\d+\/invite\/[A-Za-z0-9_-]{43})/.exec(mail.text)?.[1];
         expect(link, mail.text).toBeTruthy();
 
+        // Opened by someone signed in with another address, the page says so and offers to sign out (no accept).
+        await owner.goto(link!);
+        await owner.getByText(`You are signed in as ${ownerEmail}, but this invitation is for ${clientEmail}.`, { exact: false }).waitFor();
+        await expect(owner.getByRole('button', { name: 'Sign out' }).count()).resolves.toBeGreaterThan(0);
+        await expect(owner.getByRole('button', { name: /accept/i }).count()).resolves.toBe(0);
+
         // The client opens the link in a fresh browser (no session): sign-up is offered with the address filled in.
         const clientContext = await newContext();
         const client = await clientContext.newPage();
@@ -206,7 +212,7 @@ describe.skipIf(!haveDist)(haveDist ? 'crew and clients in a browser' : 'crew an
         expect(me.memberships.find((m: { shopId: string }) => m.shopId === shopId)).toMatchObject({ role: 'viewer', canSeePrintSets: false });
 
         // The owner sees the client in the list and lets them see print sets.
-        await owner.reload();
+        await owner.goto(`${base}/members`);
         const clientRow = owner.getByRole('listitem', { name: 'Commission Client, viewer' });
         await clientRow.waitFor();
         await expect(owner.getByRole('listitem', { name: `Invitation to ${clientEmail}` }).count()).resolves.toBe(0);
@@ -247,6 +253,11 @@ describe.skipIf(!haveDist)(haveDist ? 'crew and clients in a browser' : 'crew an
         await reset.getByRole('heading', { name: 'Builds', level: 1 }).waitFor();
 
         expect(pageErrors).toEqual([]);
+      } catch (err) {
+        // Keep what each window showed when it went wrong, for the person reading the failure.
+        let n = 0;
+        for (const c of contexts) for (const p of c.pages()) await p.screenshot({ path: path.join(artifacts, `crew-${vp.width}-failure-${++n}.png`) }).catch(() => undefined);
+        throw err;
       } finally {
         for (const c of contexts) await c.close();
       }
