@@ -16,18 +16,20 @@ import { buildSectionHref } from './build-subpage';
 
 /**
  * A labelled progress bar for a background job: role "progressbar" with its value 0–100 and the job's stage
- * in words ("queued", "flattening" …) beside it.
+ * in words ("queued", "flattening" …) beside it. A job that reports no figure (`progress` null) gets a bar
+ * without a value, so no percentage is made up.
  */
 export function JobProgress({ label, progress, stage }: { label: string; progress: number | null; stage: string | null }) {
-  const pct = Math.max(0, Math.min(100, Math.round(progress ?? 0)));
+  const pct = progress === null ? null : Math.max(0, Math.min(100, Math.round(progress)));
   return (
     <View style={styles.job}>
       <Text variant="label">
         {label}
-        {stage ? ` · ${stage}` : ''} · {pct} %
+        {stage ? ` · ${stage}` : ''}
+        {pct === null ? '…' : ` · ${pct} %`}
       </Text>
-      <View role="progressbar" accessibilityLabel={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} style={styles.track}>
-        <View style={[styles.fill, { width: `${pct}%` }]} />
+      <View role="progressbar" accessibilityLabel={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct ?? undefined} style={styles.track}>
+        <View style={[styles.fill, pct === null ? styles.unknown : { width: `${pct}%` }]} />
       </View>
     </View>
   );
@@ -125,6 +127,7 @@ const styles = StyleSheet.create({
   job: { gap: space.xs, marginBottom: space.lg },
   track: { height: 10, borderRadius: radius.pill, backgroundColor: palette.sheetSunk, borderWidth: 1, borderColor: palette.rule, overflow: 'hidden' },
   fill: { height: '100%', backgroundColor: palette.slate },
+  unknown: { width: '100%', opacity: 0.35 },
   empty: { gap: space.md, padding: space.lg, borderWidth: 1, borderStyle: 'dashed', borderColor: palette.ruleStrong, borderRadius: radius.md, backgroundColor: palette.sheet },
   link: { color: palette.emberDeep, textDecorationLine: 'underline', fontSize: 16, paddingVertical: space.sm },
   previous: { marginTop: -space.sm, marginBottom: space.lg },

@@ -62,7 +62,7 @@ function PrintSetRow({ set }: { set: PrintSetView }) {
       <Text variant="label">
         {set.page.toUpperCase()} · {MODES.find((m) => m.value === set.mode)?.label ?? set.mode} · {set.pieceCount} pieces · {formatWhen(set.createdAt)}
       </Text>
-      {isJobActive(set.status) ? <JobProgress label={set.status === 'queued' ? 'Waiting to make the print set' : 'Making the print set'} progress={set.status === 'queued' ? 0 : 50} stage={null} /> : null}
+      {isJobActive(set.status) ? <JobProgress label={set.status === 'queued' ? 'Waiting to make the print set' : 'Making the print set'} progress={null} stage={null} /> : null}
       {set.status === 'failed' ? <Notice tone="error" title="This print set failed">{set.error ?? 'The job stopped without a message.'}</Notice> : null}
       {set.status === 'done' ? (
         <View style={styles.files}>
