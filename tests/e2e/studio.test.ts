@@ -198,6 +198,15 @@ describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a brows
     await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved' }).count(), { timeout: 15_000 }).toBe(1);
     expect((await fetchSeams(fixture!)).seams.length).toBe(Number(accepted.split(' ')[0]));
 
+    // Mirror: the helm is mirror-symmetric, so every seam off the plane gets a copy and the count says so.
+    await page.getByRole('button', { name: 'Mirror seams across the symmetry plane' }).click();
+    await expect.poll(countText, { timeout: 30_000 }).toMatch(/ · mirrored$/);
+    const mirrored = Number((await countText()).split(' ')[0]);
+    expect(mirrored).toBeGreaterThan(Number(accepted.split(' ')[0]));
+    await page.getByRole('button', { name: 'Mirror seams across the symmetry plane' }).click();
+    await expect.poll(countText, { timeout: 5_000 }).toBe(accepted);
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved' }).count(), { timeout: 15_000 }).toBe(1);
+
     // The save queued a pattern of the accepted seams: its pieces colour the model and carry seam badges.
     await expect.poll(() => page.getByText(/^([2-9]|\d\d+) pieces from seam revision \d+\.$/).count(), { timeout: 120_000 }).toBe(1);
     await waitForMeshFrame(page);
