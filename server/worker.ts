@@ -6,6 +6,7 @@
 import { createDb, createPool } from '../db/client';
 import { runMigrations } from '../db/migrate';
 import { parseEnv } from './env';
+import { pgBossJobSender } from './jobs/job-sender';
 import { registerWorkers } from './jobs/register-workers';
 import { startQueue, stopQueue } from './jobs/queue';
 import { JOB_TYPES } from './jobs/job-types';
@@ -21,7 +22,8 @@ async function main(): Promise<void> {
   pool.on('error', (err) => logger.warn({ err: err.message }, 'idle database connection lost'));
   await runMigrations(pool);
   const boss = await startQueue(env.DATABASE_URL, logger, { supervise: true, schedule: true, maintenanceIntervalSeconds: env.JOB_MAINTENANCE_SECONDS });
-  const context = { db: createDb(pool), files: createFileStore(env) };
+  // Jobs may queue follow-up work (a processed sculpt queues its first pattern).
+  const context = { db: createDb(pool), files: createFileStore(env), jobs: pgBossJobSender(boss) };
   await registerWorkers(boss, context, logger, { schedule: true, pollingIntervalSeconds: 2, expireInSeconds: env.JOB_EXPIRE_SECONDS });
   // Print sets abandoned while no worker ran are failed now rather than at the first scheduled check.
   logger.info({ result: await failStalePrintSets(context) }, 'stale print sets checked');

@@ -4,8 +4,7 @@ import type { Db } from '../../db/client';
 import { recordAudit } from '../audit/service';
 import { notFound } from '../errors';
 import type { SessionUser } from '../http/define-route';
-import { printSetFilePrefix } from '../print-sets/print-set-files';
-import { selectPrintSetIdsOfBuild } from '../print-sets/queries';
+import { removeFilePrefixes, selectBuildFilePrefixes } from '../storage/build-files';
 import type { FileStore } from '../storage/file-store';
 import { benchTotals, buildStage, type BenchTotals, type BuildStage } from './build-progress';
 import {
@@ -110,21 +109,18 @@ export function renameBuild(db: Db, user: SessionUser, shopId: string, buildId: 
 }
 
 /**
- * Deletes a build; its print-set rows go with it (foreign key ON DELETE CASCADE). Their stored files are
- * removed from `files` only after the delete has committed, so a rolled-back delete never loses files; a file
- * that cannot be removed is logged on `log` and left behind, since the build is gone either way. Throws 404
- * NOT_FOUND when the shop has no such build.
+ * Deletes a build; its sculpt, pattern and print-set rows go with it (foreign keys ON DELETE CASCADE). Their
+ * stored files are removed from `files` only after the delete has committed, so a rolled-back delete never
+ * loses files; a file that cannot be removed is logged on `log` and left behind, since the build is gone either
+ * way. Throws 404 NOT_FOUND when the shop has no such build.
  */
 export async function removeBuild(db: Db, files: FileStore, log: Logger, user: SessionUser, shopId: string, buildId: string): Promise<void> {
-  const printSetIds = await db.transaction(async (tx) => {
-    const ids = await selectPrintSetIdsOfBuild(tx, shopId, buildId);
+  const prefixes = await db.transaction(async (tx) => {
+    const found = await selectBuildFilePrefixes(tx, shopId, buildId);
     const row = await deleteBuild(tx, shopId, buildId);
     if (!row) throw notFound('Build');
     await recordAudit(tx, { shopId, userId: user.id, action: 'build.delete', target: `build:${buildId}`, detail: { name: row.name } });
-    return ids;
+    return found;
   });
-  for (const id of printSetIds) {
-    const prefix = printSetFilePrefix(id);
-    await files.removePrefix(prefix).catch((err: unknown) => log.error({ err, buildId, printSetId: id, prefix }, 'could not remove the files of a deleted build\'s print set'));
-  }
+  await removeFilePrefixes(files, prefixes, (prefix, err) => log.error({ err, buildId, prefix }, "could not remove the files of a deleted build"));
 }

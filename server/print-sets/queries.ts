@@ -74,15 +74,6 @@ export function selectPrintSets(db: DbExecutor, shopId: string, buildId: string)
     .orderBy(desc(printSets.createdAt), desc(printSets.id));
 }
 
-/** Returns the ids of every print set of the shop's build (used to find their stored files). */
-export async function selectPrintSetIdsOfBuild(db: DbExecutor, shopId: string, buildId: string): Promise<string[]> {
-  const rows = await db
-    .select({ id: printSets.id })
-    .from(printSets)
-    .where(and(eq(printSets.shopId, shopId), eq(printSets.buildId, buildId)));
-  return rows.map((r) => r.id);
-}
-
 /** Returns one print set of the shop's build (without its pattern), or null. */
 export async function selectPrintSet(db: DbExecutor, shopId: string, buildId: string, id: string): Promise<PrintSetRow | null> {
   const rows = await db

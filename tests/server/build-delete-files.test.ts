@@ -84,8 +84,8 @@ describe('deleting a build', () => {
       const id = await storedPrintSet(broken.db, fx.shopId, buildId, files);
       await request(broken.app).delete(`/api/shops/${fx.shopId}/builds/${buildId}`).set('Cookie', fx.people.owner.cookie).expect(204);
       expect(await broken.db.select({ id: printSets.id }).from(printSets).where(eq(printSets.id, id))).toEqual([]);
-      const logged = lines.map((l) => JSON.parse(l) as { level: number; printSetId?: string; msg: string; err?: { message: string } });
-      const entry = logged.find((e) => e.printSetId === id);
+      const logged = lines.map((l) => JSON.parse(l) as { level: number; prefix?: string; msg: string; err?: { message: string } });
+      const entry = logged.find((e) => e.prefix === `print-sets/${id}`);
       // pino's numeric levels: 50 is "error".
       expect(entry).toMatchObject({ level: 50, err: { message: `disk refused print-sets/${id}` } });
     } finally {
