@@ -128,22 +128,24 @@ export async function insertResetLink(w: WalkWorld): Promise<string> {
   return token;
 }
 
-const PROBE_QUEUE = `walk-probe-${randomUUID().slice(0, 8)}`;
-
-/** Returns the id of a job that failed on its own queue (taken and failed by hand, no worker), ready to be retried. */
+/**
+ * Returns the id of a job that failed (taken and failed by hand, no worker), ready to be retried. Each job has a
+ * queue of its own, so an earlier job put back by a retry is never the one taken here.
+ */
 export async function insertFailedJob(w: WalkWorld): Promise<string> {
-  const id = await w.boss.send(PROBE_QUEUE, { walk: true });
-  if (!id) throw new Error(`the queue did not accept a ${PROBE_QUEUE} job`);
-  const taken = await w.boss.fetch(PROBE_QUEUE, { batchSize: 1 });
-  if (taken[0]?.id !== id) throw new Error(`the walk's probe job ${id} was not the one taken from ${PROBE_QUEUE}`);
-  await w.boss.fail(PROBE_QUEUE, id, { message: 'walk probe failed on purpose' });
+  const queue = `walk-probe-${randomUUID()}`;
+  await w.boss.createQueue(queue, { name: queue, retryLimit: 0 });
+  const id = await w.boss.send(queue, { walk: true });
+  if (!id) throw new Error(`the queue did not accept a ${queue} job`);
+  const taken = await w.boss.fetch(queue, { batchSize: 1 });
+  if (taken[0]?.id !== id) throw new Error(`the walk's probe job ${id} was not the one taken from ${queue}`);
+  await w.boss.fail(queue, id, { message: 'walk probe failed on purpose' });
   return id;
 }
 
 /** Starts the queue, the mail catcher and the app, and makes the fixture; `close` stops them in reverse order. */
 export async function makeWalkWorld(): Promise<WalkWorld> {
   const boss = await startQueue(TEST_DATABASE_URL, logger, { supervise: false, schedule: false });
-  await boss.createQueue(PROBE_QUEUE, { name: PROBE_QUEUE, retryLimit: 0 });
   const files = localDiskStore(mkdtempSync(path.join(tmpdir(), 'sheetsmith-walk-')));
   const ctx = await makeTestApp({ signInLimit: { max: 1000, windowMs: 60_000 } });
   const catcher: MailCatcher = await startMailCatcher({ smtpPort: 0, httpPort: 0 });
