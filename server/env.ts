@@ -5,6 +5,10 @@
 import { z } from 'zod';
 import { DEFAULT_DATABASE_URL } from '../db/client';
 
+/** Payment settings that work with the local fake only; refused in production. */
+const LOCAL_PAY_API_KEY = 'local-pay-key-for-development';
+const LOCAL_PAY_WEBHOOK_SECRET = 'local-webhook-secret-for-development';
+
 const LOG_LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as const;
 
 const envSchema = z
@@ -55,12 +59,14 @@ const envSchema = z
     PASSWORD_RESET_RATE_LIMIT_IP: z.coerce.number().int().min(1).default(10),
     PASSWORD_RESET_RATE_LIMIT_EMAIL: z.coerce.number().int().min(1).default(3),
     PASSWORD_RESET_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(60),
+    /** Invitation e-mails (new and resent) one shop may send per hour; bounds what a shop can mail to strangers. */
+    INVITATION_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
     /** Payment API base URL (the provider's SDK is pointed here); locally the fake of server/dev/payment-fake.ts. */
     PAY_API_URL: z.string().url('must be a URL such as http://127.0.0.1:8473').default('http://127.0.0.1:8473'),
     /** Secret API key for the payment API; the local default matches the fake started by the start command. */
-    PAY_API_KEY: z.string().min(8, 'must be at least 8 characters').default('local-pay-key-for-development'),
+    PAY_API_KEY: z.string().min(8, 'must be at least 8 characters').default(LOCAL_PAY_API_KEY),
     /** Secret that signs the payment webhook's events (checked with the SDK's constructEvent). */
-    PAY_WEBHOOK_SECRET: z.string().min(16, 'must be at least 16 characters').default('local-webhook-secret-for-development'),
+    PAY_WEBHOOK_SECRET: z.string().min(16, 'must be at least 16 characters').default(LOCAL_PAY_WEBHOOK_SECRET),
     /** How long a pack's download link works, in hours, and how many file downloads it allows. */
     DOWNLOAD_LINK_HOURS: z.coerce.number().positive().default(24),
     DOWNLOAD_LINK_MAX_USES: z.coerce.number().int().min(1).default(5),
@@ -73,6 +79,13 @@ const envSchema = z
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required when NODE_ENV=production' });
+    }
+    // The local defaults are public (they are in this file), so anyone could forge a "paid" webhook with them.
+    if (env.NODE_ENV === 'production') {
+      if (env.PAY_API_KEY === LOCAL_PAY_API_KEY) ctx.addIssue({ code: 'custom', path: ['PAY_API_KEY'], message: 'must be set to the payment provider\'s key when NODE_ENV=production' });
+      if (env.PAY_WEBHOOK_SECRET === LOCAL_PAY_WEBHOOK_SECRET) {
+        ctx.addIssue({ code: 'custom', path: ['PAY_WEBHOOK_SECRET'], message: 'must be set to the webhook signing secret when NODE_ENV=production' });
+      }
     }
     if (env.STORAGE === 's3') {
       for (const name of ['S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {

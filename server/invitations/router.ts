@@ -5,6 +5,7 @@ import { invitationCreateBody, linkTokenField } from '../../db/validation-crew';
 import { defineRoute, type MountableRoute } from '../http/define-route';
 import { shopParams } from '../http/params';
 import type { Mailer } from '../mail/send-mail';
+import { invitationLimiter } from './invite-limit';
 import { acceptInvitation, createInvitation, listInvitations, previewInvitation, resendInvitation, revokeShopInvitation } from './service';
 
 const invitationParams = shopParams.extend({ invitationId: z.string().uuid('must be an invitation id (a UUID)') });
@@ -13,9 +14,13 @@ const tokenParams = z.object({ token: linkTokenField });
 /** Path of a shop's invitations. */
 export const INVITATIONS_PATH = '/api/shops/:shopId/invitations';
 
-/** Returns the invitation routes; `baseUrl` is the origin used in the mailed links. */
-export function invitationRoutes(deps: { db: Db; mailer: Mailer; baseUrl: string }): MountableRoute[] {
+/**
+ * Returns the invitation routes; `baseUrl` is the origin used in the mailed links, `perShopHourly` the number of
+ * invitation mails a shop may send per hour.
+ */
+export function invitationRoutes(deps: { db: Db; mailer: Mailer; baseUrl: string; perShopHourly: number }): MountableRoute[] {
   const { db } = deps;
+  const limit = invitationLimiter(db, deps.perShopHourly);
   return [
     defineRoute({
       method: 'GET',
@@ -30,6 +35,7 @@ export function invitationRoutes(deps: { db: Db; mailer: Mailer; baseUrl: string
       access: { shopRole: 'owner' },
       params: shopParams,
       body: invitationCreateBody,
+      before: [limit],
       handler: async ({ user, shop, body }) => ({ status: 201, json: await createInvitation(deps, user, shop.id, body) }),
     }),
     defineRoute({
@@ -47,6 +53,7 @@ export function invitationRoutes(deps: { db: Db; mailer: Mailer; baseUrl: string
       path: `${INVITATIONS_PATH}/:invitationId/resend`,
       access: { shopRole: 'owner' },
       params: invitationParams,
+      before: [limit],
       handler: async ({ user, shop, params }) => ({ status: 200, json: await resendInvitation(deps, user, shop.id, params.invitationId) }),
     }),
     defineRoute({

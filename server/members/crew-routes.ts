@@ -27,7 +27,7 @@ export function crewRoutes(deps: AppDeps): MountableRoute[] {
       : deps.passwordResetLimit;
   return [
     ...memberRoutes(deps.db),
-    ...invitationRoutes({ db: deps.db, mailer, baseUrl }),
+    ...invitationRoutes({ db: deps.db, mailer, baseUrl, perShopHourly: deps.env.INVITATION_RATE_LIMIT }),
     ...passwordResetRoutes({ db: deps.db, mailer, baseUrl, limit }),
   ];
 }

@@ -9,7 +9,7 @@ import { createServer } from 'node:net';
 import { and, eq, sql } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { memberships } from '../../db/schema-core';
+import { memberships, rateLimitHits, shops } from '../../db/schema-core';
 import { invitations, sentMail } from '../../db/schema-sharing';
 import { hashLinkToken, newLinkToken } from '../../server/mail/link-token';
 import { createMailer } from '../../server/mail/send-mail';
@@ -208,5 +208,35 @@ describe('accepting', () => {
     const [other] = await ctx.db.select({ shopId: memberships.shopId }).from(memberships).where(eq(memberships.userId, fx.people.otherOwner.id));
     await request(ctx.crewApp).delete(`/api/shops/${other.shopId}/invitations/${res.body.invitation.id}`).set('Cookie', fx.people.otherOwner.cookie).expect(404);
     await request(ctx.crewApp).post(`/api/shops/${other.shopId}/invitations/${res.body.invitation.id}/resend`).set('Cookie', fx.people.otherOwner.cookie).expect(404);
+  });
+});
+
+describe('the invitation-mail limit per shop', () => {
+  it('allows a set number of invitations and resends per shop per hour, not counting refused requests', async () => {
+    const app = ctx.appWith({ env: { INVITATION_RATE_LIMIT: '2' } });
+    const [shop] = await ctx.db.insert(shops).values({ name: 'Busy shop' }).returning({ id: shops.id });
+    const owner = await insertPerson(ctx.db, 'busy-owner');
+    const editor = await insertPerson(ctx.db, 'busy-editor');
+    await ctx.db.insert(memberships).values([
+      { userId: owner.id, shopId: shop.id, role: 'owner' },
+      { userId: editor.id, shopId: shop.id, role: 'editor' },
+    ]);
+    const ownerCookie = await sessionCookie(ctx.key, owner.id);
+    const url = `/api/shops/${shop.id}/invitations`;
+    // Refused calls (anonymous 401, editor 403, bad body 400) do not use up the shop's allowance.
+    await request(app).post(url).send({ email: uniqueEmail('nope'), role: 'viewer' }).expect(401);
+    await request(app).post(url).set('Cookie', await sessionCookie(ctx.key, editor.id)).send({ email: uniqueEmail('nope'), role: 'viewer' }).expect(403);
+    await request(app).post(url).set('Cookie', ownerCookie).send({ email: 'bad', role: 'viewer' }).expect(400);
+    // express-rate-limit takes a refused request back when its answer has been sent, a moment after the client has it.
+    const hits = async () => (await ctx.db.select({ hits: rateLimitHits.hits }).from(rateLimitHits).where(eq(rateLimitHits.key, `invite:${shop.id}`)))[0]?.hits ?? 0;
+    await expect.poll(hits).toBe(0);
+    const first = await request(app).post(url).set('Cookie', ownerCookie).send({ email: uniqueEmail('busy1'), role: 'viewer' }).expect(201);
+    await request(app).post(`${url}/${first.body.invitation.id}/resend`).set('Cookie', ownerCookie).expect(200);
+    const over = await request(app).post(url).set('Cookie', ownerCookie).send({ email: uniqueEmail('busy3'), role: 'viewer' }).expect(429);
+    expect(over.body.error).toEqual({ code: 'RATE_LIMITED', message: 'This shop has sent 2 invitations in the last hour, the most allowed; wait a while and try again' });
+    // Another shop of the same owner is not affected.
+    const [calm] = await ctx.db.insert(shops).values({ name: 'Calm shop' }).returning({ id: shops.id });
+    await ctx.db.insert(memberships).values({ userId: owner.id, shopId: calm.id, role: 'owner' });
+    await request(app).post(`/api/shops/${calm.id}/invitations`).set('Cookie', ownerCookie).send({ email: uniqueEmail('calm'), role: 'viewer' }).expect(201);
   });
 });

@@ -24,7 +24,7 @@ export interface CrewTestContext extends TestContext {
   /** Waits until a mail to `to` has been caught and returns the newest one. */
   mailTo(to: string): Promise<CaughtMail>;
   /** Rebuilds an app with other settings over the same database (e.g. rate limits, a broken mailer). */
-  appWith(options: { mailer?: Mailer; passwordResetLimit?: PasswordResetLimitOptions | null; trustProxy?: string }): Express;
+  appWith(options: { mailer?: Mailer; passwordResetLimit?: PasswordResetLimitOptions | null; trustProxy?: string; env?: Record<string, string> }): Express;
 }
 
 /** Starts the catcher and returns the context; `close` stops the catcher, the mailer and the pool. */
@@ -34,7 +34,7 @@ export async function makeCrewTestApp(): Promise<CrewTestContext> {
   const mailer = createMailer({ SMTP_URL: `smtp://127.0.0.1:${catcher.smtpPort}`, MAIL_FROM: 'Sheetsmith <no-reply@sheetsmith.example.com>' }, ctx.db);
   const appWith: CrewTestContext['appWith'] = (options) =>
     createApp({
-      env: parseEnv({ NODE_ENV: 'test', DATABASE_URL: TEST_DATABASE_URL, WEB_ROOT: '/nonexistent-web-root', PUBLIC_URL: TEST_PUBLIC_URL, TRUST_PROXY: options.trustProxy ?? 'loopback' }),
+      env: parseEnv({ NODE_ENV: 'test', DATABASE_URL: TEST_DATABASE_URL, WEB_ROOT: '/nonexistent-web-root', PUBLIC_URL: TEST_PUBLIC_URL, TRUST_PROXY: options.trustProxy ?? 'loopback', ...options.env }),
       pool: ctx.pool,
       db: ctx.db,
       sessionSecret: ctx.secret,
