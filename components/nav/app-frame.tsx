@@ -15,11 +15,45 @@ import { RoleBadge } from './role-badge';
 import { ShopSwitcher } from './shop-switcher';
 import { SignOutButton } from './sign-out-button';
 
-const sections = [{ href: '/builds', label: 'Builds' }] as const;
+interface Section {
+  href: '/builds' | '/members' | '/packs' | '/admin';
+  label: string;
+}
+
+/** The main sections for `user`: every member's work, the public pattern packs, and the admin pages for site admins. */
+function sectionsFor(user: User): Section[] {
+  const sections: Section[] = [
+    { href: '/builds', label: 'Builds' },
+    { href: '/members', label: 'Crew & clients' },
+    { href: '/packs', label: 'Pattern packs' },
+  ];
+  if (user.isAdmin) sections.push({ href: '/admin', label: 'Site admin' });
+  return sections;
+}
+
+function SectionLinks({ user, compact }: { user: User; compact?: boolean }) {
+  const path = usePathname();
+  return (
+    <View style={compact ? styles.topLinks : styles.sideLinks}>
+      {sectionsFor(user).map((s) => {
+        const active = path === s.href || path.startsWith(`${s.href}/`);
+        return (
+          <Link
+            key={s.href}
+            href={s.href}
+            aria-current={active ? 'page' : undefined}
+            style={[compact ? styles.topLink : styles.sideLink, active && (compact ? styles.topLinkActive : styles.sideLinkActive)]}
+          >
+            {s.label}
+          </Link>
+        );
+      })}
+    </View>
+  );
+}
 
 function SideBar({ user }: { user: User }) {
   const { membership } = useCurrentShop();
-  const path = usePathname();
   return (
     <View role="navigation" accessibilityLabel="Main" style={styles.side}>
       <View style={styles.sideBrand}>
@@ -29,21 +63,7 @@ function SideBar({ user }: { user: User }) {
         </Text>
       </View>
       <ShopSwitcher dark />
-      <View style={styles.sideLinks}>
-        {sections.map((s) => {
-          const active = path === s.href || path.startsWith(`${s.href}/`);
-          return (
-            <Link
-              key={s.href}
-              href={s.href}
-              aria-current={active ? 'page' : undefined}
-              style={[styles.sideLink, active && styles.sideLinkActive]}
-            >
-              {s.label}
-            </Link>
-          );
-        })}
-      </View>
+      <SectionLinks user={user} />
       <View style={styles.sideFoot}>
         <Text variant="overline" style={styles.onBenchSoft}>
           Signed in
@@ -86,6 +106,7 @@ function TopBar({ user }: { user: User }) {
         <SignOutButton dark />
       </View>
       <ShopSwitcher dark />
+      <SectionLinks user={user} compact />
     </View>
   );
 }
@@ -134,4 +155,15 @@ const styles = StyleSheet.create({
   topName: { fontFamily: fonts.display },
   topUser: { flex: 1, minWidth: 0, alignItems: 'flex-end' },
   topUserName: { maxWidth: '100%' },
+  topLinks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
+  topLink: {
+    minHeight: minTouchTarget,
+    lineHeight: minTouchTarget,
+    paddingHorizontal: space.sm,
+    borderRadius: radius.sm,
+    color: palette.onBench,
+    fontFamily: fonts.bodyStrong,
+    fontSize: 15,
+  },
+  topLinkActive: { borderBottomWidth: 3, borderBottomColor: palette.ember },
 });

@@ -52,7 +52,12 @@ describe('parseEnv', () => {
 
   it('requires SESSION_SECRET in production', () => {
     expect(() => parseEnv({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET: is required when NODE_ENV=production/);
-    expect(parseEnv({ NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(32) }).SESSION_SECRET).toHaveLength(32);
+    const production = { NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(32), PAY_API_KEY: 'k'.repeat(24), PAY_WEBHOOK_SECRET: 'w'.repeat(32) };
+    expect(parseEnv(production).SESSION_SECRET).toHaveLength(32);
+  });
+
+  it('refuses the local payment key and webhook secret in production', () => {
+    expect(() => parseEnv({ NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(32) })).toThrow(/PAY_API_KEY: must be set[\s\S]*PAY_WEBHOOK_SECRET: must be set/);
   });
 });
 
