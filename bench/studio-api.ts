@@ -90,7 +90,18 @@ export async function createStudioFixture(
 }
 
 /** GET the sculpt's seam set through the API (for checks after the browser saved). */
-export async function fetchSeams(f: StudioFixture): Promise<{ revision: number; seams: { id: string; path: number[] }[] }> {
+export async function fetchSeams(f: StudioFixture): Promise<{ revision: number; seams: { id: string; picks: number[]; path: number[]; source: string }[] }> {
   const r = await call(f.base, f.cookie, 'GET', `/api/shops/${f.shopId}/builds/${f.buildId}/sculpts/${f.sculptId}/seams`);
   return r.json.seams;
+}
+
+/** PUT the sculpt's seam set through the API as another editor would (for the studio's conflict check). */
+export async function replaceSeams(f: StudioFixture, baseRevision: number, seams: { id: string; picks: number[]; path: number[]; source: string }[]): Promise<number> {
+  const r = await call(f.base, f.cookie, 'PUT', `/api/shops/${f.shopId}/builds/${f.buildId}/sculpts/${f.sculptId}/seams`, {
+    baseRevision,
+    seams,
+    symmetry: null,
+    stretchBudgetPct: 3,
+  });
+  return r.json.seams.revision;
 }

@@ -14,7 +14,7 @@ import { createServer } from 'node:net';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createStudioFixture, fetchSeams, type StudioFixture } from '../../bench/studio-api';
+import { createStudioFixture, fetchSeams, replaceSeams, type StudioFixture } from '../../bench/studio-api';
 
 const root = path.resolve(__dirname, '../..');
 const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
@@ -221,13 +221,21 @@ describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a brows
     await context.close();
   }, 240_000);
 
-  it('shows the saved seam on a phone and switches to the flat pieces — 390 px', async () => {
+  it('shows the saved seams on a phone, switches to the flat pieces, and loads the other editor\'s seams on a conflict — 390 px', async () => {
     const { context, page, errors } = await openStudio(390, 844);
     await expect.poll(() => page.getByText(/^\d+ seams?( · mirrored)?$/).count(), { timeout: 15_000 }).toBe(1);
     await page.screenshot({ path: path.join(artifacts, 'studio-390-1-view.png') });
     await page.getByRole('button', { name: 'Flat pieces' }).click();
     await expect.poll(() => page.getByRole('list', { name: 'Pattern pieces' }).count(), { timeout: 15_000 }).toBe(1);
     await page.screenshot({ path: path.join(artifacts, 'studio-390-2-pieces.png') });
+
+    // Someone else saves while this page is open: this page's next save is refused (409) and theirs is loaded.
+    const current = await fetchSeams(fixture!);
+    await replaceSeams(fixture!, current.revision, [current.seams[0]]);
+    await page.getByRole('button', { name: 'Mirror seams across the symmetry plane' }).click();
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Someone else changed the seams' }).count(), { timeout: 30_000 }).toBe(1);
+    await expect.poll(() => page.getByText('1 seam', { exact: true }).count(), { timeout: 5_000 }).toBe(1);
+    await page.screenshot({ path: path.join(artifacts, 'studio-390-3-conflict.png') });
     expect(errors).toEqual([]);
     await context.close();
   }, 120_000);
