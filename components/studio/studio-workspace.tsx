@@ -34,7 +34,7 @@ import {
   type SeamSetDraft,
 } from './seam-set-edits';
 import StudioViewport, { type SurfacePick } from './studio-viewport';
-import { SaveLine, ShortcutsHelp, StretchLegend, ToolButton, ToolGroup } from './studio-tools';
+import { SaveLine, saveStatusText, ShortcutsHelp, StretchLegend, ToolButton, ToolGroup } from './studio-tools';
 
 export interface StudioWorkspaceProps {
   shopId: string;
@@ -92,6 +92,8 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
           // A save queues a new pattern: ask for it now, so its progress is polled until the pieces are made.
           onSaved: () => void queryClient.invalidateQueries({ queryKey: patternQueryKey(shopId, buildId) }),
           onConflict: (current) => {
+            // Their save queued its own pattern: read it too.
+            void queryClient.invalidateQueries({ queryKey: patternQueryKey(shopId, buildId) });
             setDrawing({ picks: [], path: [] });
             setHistory(resetHistory(draftOf(current)));
           },
@@ -457,7 +459,10 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
           {/* The 3D view stays mounted while the pieces show: its WebGL context and badge overlays live on. */}
           <View style={phoneView === '3d' ? undefined : styles.hidden}>{view3d}</View>
           {phoneView === 'pieces' ? <View style={styles.phoneBoard}>{board}</View> : null}
-          {/* On a phone the model comes first; suggestions and views sit under it. */}
+          {/* On a phone the model comes first; suggestions and views sit under it, with a repeat of a save problem. */}
+          {saveStatus.state === 'conflict' || saveStatus.state === 'failed' ? (
+            <Notice tone="caution">{saveStatusText(saveStatus)}</Notice>
+          ) : null}
           {moreTools}
         </>
       )}
