@@ -163,7 +163,23 @@ export function ShortcutsHelp({ onClose }: { onClose(): void }) {
   );
 }
 
+/** Stretch budget choices, percent (the engine's default is 3). */
+const BUDGETS = [2, 3, 5, 8];
+
+/** Picks the stretch budget suggested pieces are cut to. */
+export function BudgetChooser({ value, onChange, disabled }: { value: number; onChange(v: number): void; disabled: boolean }) {
+  return (
+    <View style={styles.budget} role="radiogroup" accessibilityLabel="Stretch budget for suggested pieces">
+      <Text variant="small">Budget</Text>
+      {BUDGETS.map((b) => (
+        <ToolButton key={b} label={`${b}%`} on={value === b} disabled={disabled} onPress={() => onChange(b)} accessibilityLabel={`Stretch budget ${b} percent`} />
+      ))}
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
+  budget: { flexDirection: 'row', alignItems: 'center', gap: space.xxs },
   group: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, alignItems: 'center' },
   tool: {
     minHeight: 36,

@@ -33,8 +33,9 @@ import {
   seamsWithoutCopy,
   type SeamSetDraft,
 } from './seam-set-edits';
+import { useStudioKeys, type StudioKeyAction } from './studio-keys';
 import StudioViewport, { type SurfacePick } from './studio-viewport';
-import { SaveLine, saveStatusText, ShortcutsHelp, StretchLegend, ToolButton, ToolGroup } from './studio-tools';
+import { BudgetChooser, SaveLine, saveStatusText, ShortcutsHelp, StretchLegend, ToolButton, ToolGroup } from './studio-tools';
 
 export interface StudioWorkspaceProps {
   shopId: string;
@@ -292,35 +293,23 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
 
   const present = history.present;
 
-  // Keyboard shortcuts on a wide screen (web only).
-  const keys = useRef<(e: KeyboardEvent) => void>(() => undefined);
-  keys.current = (e: KeyboardEvent) => {
-    const target = e.target as HTMLElement | null;
-    if (target && (target.tagName === 'INPUT' || target.tagName === 'TEXTAREA' || target.isContentEditable)) return;
-    if (e.ctrlKey || e.metaKey || e.altKey) return;
-    const k = e.key;
-    const edit = canEdit && !busy;
-    if (k === '?') setShowHelp((s) => !s);
-    else if ((k === 'Escape' || k === 'Enter') && drawing.path.length > 0) void finishSeam();
-    else if (k === 'Escape') setShowHelp(false);
-    else if (k === 'Backspace' && drawing.picks.length > 0) undoPick();
-    else if ((k === 'z' || k === 'Z') && edit) step(e.shiftKey ? 'redo' : 'undo');
-    else if ((k === 'y' || k === 'Y') && edit) step('redo');
-    else if ((k === 'e' || k === 'E') && canEdit) setMode('erase');
-    else if ((k === 'd' || k === 'D') && canEdit) setMode('draw');
-    else if (k === 'p' || k === 'P') setMode('pick');
-    else if ((k === 'm' || k === 'M') && edit) void toggleSymmetry();
-    else if ((k === 'c' || k === 'C') && edit) void suggestCreases();
-    else if (k === 's' || k === 'S') setStretchOn((s) => !s);
-    else return;
-    e.preventDefault();
-  };
-  useEffect(() => {
-    if (Platform.OS !== 'web' || !wide || typeof document === 'undefined') return;
-    const listener = (e: KeyboardEvent) => keys.current(e);
-    document.addEventListener('keydown', listener);
-    return () => document.removeEventListener('keydown', listener);
-  }, [wide]);
+  useStudioKeys(wide, { canEdit, busy: !!busy, drawing: drawing.picks.length > 0 }, (action) => {
+    const run: Record<StudioKeyAction, () => void> = {
+      help: () => setShowHelp((s) => !s),
+      'close-help': () => setShowHelp(false),
+      'finish-seam': () => void finishSeam(),
+      'drop-pick': undoPick,
+      undo: () => step('undo'),
+      redo: () => step('redo'),
+      'erase-mode': () => setMode('erase'),
+      'draw-mode': () => setMode('draw'),
+      'pick-mode': () => setMode('pick'),
+      mirror: () => void toggleSymmetry(),
+      creases: () => void suggestCreases(),
+      'stretch-map': () => setStretchOn((s) => !s),
+    };
+    run[action]();
+  });
 
   const seamCount = present.seams.length;
   const description = `3D view of the sculpt with ${seamCount} seam${seamCount === 1 ? '' : 's'}${doc ? ` and ${doc.pieces.length} pieces` : ''}${stretchOn && facesOk ? ', stretch map shown' : ''}.`;
@@ -470,20 +459,6 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
   );
 }
 
-/** Stretch budget choices, percent (the engine's default is 3). */
-const BUDGETS = [2, 3, 5, 8];
-
-function BudgetChooser({ value, onChange, disabled }: { value: number; onChange(v: number): void; disabled: boolean }) {
-  return (
-    <View style={styles.budget} role="radiogroup" accessibilityLabel="Stretch budget for suggested pieces">
-      <Text variant="small">Budget</Text>
-      {BUDGETS.map((b) => (
-        <ToolButton key={b} label={`${b}%`} on={value === b} disabled={disabled} onPress={() => onChange(b)} accessibilityLabel={`Stretch budget ${b} percent`} />
-      ))}
-    </View>
-  );
-}
-
 const styles = StyleSheet.create({
   wrap: { gap: space.sm },
   tools: { gap: space.xs },
@@ -507,5 +482,4 @@ const styles = StyleSheet.create({
   phoneSwitch: { flexDirection: 'row', gap: space.xs },
   phoneBoard: { minHeight: 200 },
   hidden: { display: 'none' },
-  budget: { flexDirection: 'row', alignItems: 'center', gap: space.xxs },
 });
