@@ -1,11 +1,10 @@
 /**
- * The build page's blocks under the sculpt versions: pieces, sheet plans, print sets, bench progress and
- * members, each from the build overview (hooks/use-builds.ts useBuildOverview).
+ * The build page's blocks under the sculpt versions: pieces, sheet plans, print sets and bench progress, each
+ * from the build overview (hooks/use-builds.ts useBuildOverview).
  */
 import { Link } from 'expo-router';
 import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { roleLabels } from '../../hooks/role-permissions';
 import type { BuildOverview } from '../../hooks/use-builds';
 import { formatBytes } from '../../hooks/use-upload';
 import { Card } from '../ui/card';
@@ -103,7 +102,11 @@ export function SheetsSummary({ o, href }: { o: BuildOverview; href: string }) {
       <Text variant="label" style={styles.sub}>
         Print sets
       </Text>
-      {o.printSets === null ? <Text variant="small">The shop owner has not opened print sets to you.</Text> : null}
+      {o.printSets === null ? (
+        <Notice tone="note" title="Print sets are shared by the shop owner">
+          The owner has not opened print sets to you yet; ask them if you need the files.
+        </Notice>
+      ) : null}
       {o.printSets && o.printSets.length === 0 ? <Text variant="small">No print set yet.</Text> : null}
       {(o.printSets ?? []).map((p) => (
         <View key={p.id} style={styles.line}>
@@ -140,22 +143,6 @@ export function BenchSummary({ o, href }: { o: BuildOverview; href: string }) {
           {b.stale > 0 ? <Text variant="small">{`${b.stale} ticked pieces belong to an older pattern and are kept aside.`}</Text> : null}
         </>
       )}
-    </Section>
-  );
-}
-
-/** The shop's members by name and role (read-only). */
-export function MembersList({ o }: { o: BuildOverview }) {
-  return (
-    <Section title="Members">
-      <View role="list" accessibilityLabel="Members">
-        {o.members.map((m) => (
-          <View role="listitem" key={m.userId} style={styles.line}>
-            <Text variant="bodyStrong">{m.name}</Text>
-            <Text variant="small">{roleLabels[m.role].name}</Text>
-          </View>
-        ))}
-      </View>
     </Section>
   );
 }

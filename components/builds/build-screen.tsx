@@ -1,7 +1,8 @@
 /**
  * One build's page: its name and dates, rename and delete as the role allows, the ways into the studio,
- * pieces, sheets and bench screens, the sculpt versions, pieces, sheet plans, print sets, bench progress and
- * members.
+ * pieces, sheets and bench screens, the sculpt versions, pieces, sheet plans, print sets, bench progress, the
+ * shop's crew and clients (managed by the owner, read by everyone else) and, for the owner, publishing a
+ * pattern pack from a finished print set.
  */
 import { Link, useRouter } from 'expo-router';
 import { useEffect, useRef, useState } from 'react';
@@ -12,6 +13,8 @@ import { buildPermissionsFor } from '../../hooks/role-permissions';
 import { useWideLayout } from '../../hooks/use-wide-layout';
 import { useBuild, useBuildOverview, useDeleteBuild, useRenameBuild } from '../../hooks/use-builds';
 import { useSculpts } from '../../hooks/use-sculpts';
+import { MembersPanel } from '../members/members-panel';
+import { PublishPackForm } from '../packs/publish-pack-form';
 import { SculptVersions } from '../sculpts/sculpt-versions';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
@@ -22,7 +25,7 @@ import { Screen } from '../ui/screen';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
 import { BuildNameForm } from './build-name-form';
-import { BenchSummary, MembersList, PiecesSummary, Section, SheetsSummary } from './build-overview-sections';
+import { BenchSummary, PiecesSummary, Section, SheetsSummary } from './build-overview-sections';
 import { buildHref } from './build-row';
 import { DeleteBuildConfirm } from './delete-build-confirm';
 import { formatWhen } from './format-time';
@@ -166,9 +169,16 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
           <View style={wide ? styles.gridCell : undefined}>
             <SheetsSummary o={overview.data} href={buildHref(b, '/sheets')} />
           </View>
-          <View style={wide ? styles.gridCell : undefined}>
-            <MembersList o={overview.data} />
-          </View>
+        </View>
+      ) : null}
+      {targetMembership ? (
+        <View style={styles.block}>
+          <MembersPanel shopId={targetMembership.shopId} />
+        </View>
+      ) : null}
+      {targetMembership?.role === 'owner' ? (
+        <View style={styles.block}>
+          <PublishPackForm shopId={targetMembership.shopId} buildId={b.id} />
         </View>
       ) : null}
       <JobSteps />
