@@ -47,6 +47,8 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
   const rename = useRenameBuild(targetShopId);
   const remove = useDeleteBuild(targetShopId);
   const [mode, setMode] = useState<'view' | 'rename' | 'delete'>('view');
+  // The pack form is long and most visits are about the build itself, so an owner opens it on purpose.
+  const [packOpen, setPackOpen] = useState(false);
   const wide = useWideLayout();
 
   // On arrival the build's shop becomes the current shop; if the person later switches to another shop in the
@@ -177,9 +179,17 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
         </View>
       ) : null}
       {targetMembership?.role === 'owner' ? (
-        <View style={styles.block}>
-          <PublishPackForm shopId={targetMembership.shopId} buildId={b.id} />
-        </View>
+        packOpen ? (
+          <View style={styles.block}>
+            <PublishPackForm shopId={targetMembership.shopId} buildId={b.id} />
+            <Button label="Close the pack form" tone="quiet" compact onPress={() => setPackOpen(false)} style={styles.retry} />
+          </View>
+        ) : (
+          <Section title="Pattern pack">
+            <Text variant="small">Share or sell a finished print set of this build as a pattern pack; you see its packs and orders here.</Text>
+            <Button label="Publish a pattern pack" tone="secondary" compact onPress={() => setPackOpen(true)} style={styles.retry} />
+          </Section>
+        )
       ) : null}
       <JobSteps />
     </Screen>

@@ -191,11 +191,17 @@ describe.skipIf(!haveDist)(
           await v1.getByText('Ready').waitFor({ timeout: 30_000 });
           await v1.getByText('demo-helm.obj', { exact: false }).waitFor();
           await v1.getByText(/^Size /).waitFor();
-          // The owner manages the crew from the build page (invite form) and may publish a pack from it.
+          // The owner manages the crew from the build page (invite form) and opens the pack form from it.
           await page.getByRole('heading', { name: 'Crew and clients', level: 2 }).waitFor();
           await page.getByRole('list', { name: 'Members' }).getByText(`Foam Maker ${vp.width} (you)`).waitFor();
-          await page.getByRole('heading', { name: 'Pattern packs', level: 2 }).waitFor();
           await shot('3-build-page');
+          // The page scrolls inside its own view, so a full-page shot stops at the window: scroll to the crew.
+          await page.getByRole('heading', { name: 'Crew and clients', level: 2 }).scrollIntoViewIfNeeded();
+          await shot('3b-build-page-crew');
+          await page.getByRole('button', { name: 'Publish a pattern pack' }).click();
+          await page.getByRole('heading', { name: 'Pattern packs', level: 2 }).scrollIntoViewIfNeeded();
+          await page.getByText('No finished print set yet.').waitFor();
+          await shot('3c-build-page-packs');
 
           // A processed sculpt queues its first pattern (no seams yet: the whole shell as one piece), so the
           // build moves on to "Pieces ready" (server/builds/build-progress.ts buildStage); the table polls.
