@@ -155,6 +155,13 @@ describe.skipIf(!haveDist)(
           await expect(nav.getByText(name).first().isVisible()).resolves.toBe(true);
           await expect(nav.getByLabel('Role: Owner').first().isVisible()).resolves.toBe(true);
           await expect(nav.getByRole('button', { name: 'Sign out' }).isVisible()).resolves.toBe(true);
+          // The main sections (components/nav/app-frame.tsx): builds, crew & clients, pattern packs; the site
+          // admin link only for site admins, which a new account is not.
+          for (const section of ['Builds', 'Crew & clients', 'Pattern packs']) {
+            await expect(nav.getByRole('link', { name: section, exact: true }).isVisible()).resolves.toBe(true);
+          }
+          await expect(nav.getByRole('link', { name: 'Site admin' }).count()).resolves.toBe(0);
+          await expect(nav.getByRole('link', { name: 'Builds', exact: true }).getAttribute('aria-current')).resolves.toBe('page');
           // The side bar sits left of the page from 1024 px; on a phone the bar spans the top.
           const navBox = (await nav.boundingBox())!;
           if (vp.wide) {
