@@ -33,8 +33,11 @@ export function Section({ title, children, link }: { title: string; children: Re
 
 const jobWords = { queued: 'waiting for a worker', running: 'running', done: 'done', failed: 'failed' } as const;
 
-/** The pieces block: count, parts to cut, seams, pieces over the stretch budget, and the pattern job's state. */
-export function PiecesSummary({ o, href }: { o: BuildOverview; href: string }) {
+/**
+ * The pieces block: count, parts to cut, seams, pieces over the stretch budget, and the pattern job's state.
+ * `canMarkSeams` (editor or owner) decides whether an empty build invites the reader to mark seams.
+ */
+export function PiecesSummary({ o, href, canMarkSeams }: { o: BuildOverview; href: string; canMarkSeams: boolean }) {
   const over = o.pieces.filter((p) => p.overBudget);
   const copies = o.pieces.reduce((n, p) => n + p.quantity, 0);
   const busy = o.pattern && (o.pattern.status === 'queued' || o.pattern.status === 'running');
@@ -48,7 +51,13 @@ export function PiecesSummary({ o, href }: { o: BuildOverview; href: string }) {
       ) : null}
       {o.pattern?.status === 'failed' ? <Notice tone="error" title="The pattern failed">{o.pattern.error ?? 'The job ended without saying why.'}</Notice> : null}
       {o.pieces.length === 0 ? (
-        <Text variant="small">{o.pattern ? 'No finished pattern yet.' : 'No pieces yet: mark seams in the studio and the pattern is made from them.'}</Text>
+        <Text variant="small">
+          {o.pattern
+            ? 'No finished pattern yet.'
+            : canMarkSeams
+              ? 'No pieces yet: mark seams in the studio and the pattern is made from them.'
+              : 'No pieces yet: the pattern is made once the crew marks the seams.'}
+        </Text>
       ) : (
         <>
           <View style={styles.stats}>

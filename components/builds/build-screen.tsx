@@ -163,7 +163,7 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
       {overview.data ? (
         <View style={wide ? styles.grid : undefined}>
           <View style={wide ? styles.gridCell : undefined}>
-            <PiecesSummary o={overview.data} href={buildHref(b, '/pieces')} />
+            <PiecesSummary o={overview.data} href={buildHref(b, '/pieces')} canMarkSeams={can.rename} />
           </View>
           <View style={wide ? styles.gridCell : undefined}>
             <BenchSummary o={overview.data} href={buildHref(b, '/bench')} />
