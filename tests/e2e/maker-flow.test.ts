@@ -181,6 +181,7 @@ describe.skipIf(!haveDist)(
           // The processing job runs in the worker; when it is done the page opens the studio.
           await page.waitForURL((u) => u.pathname.endsWith('/studio'), { timeout: 120_000 });
           const studioUrl = page.url();
+          await waitForMeshFrame(page);
           await shot('2-studio');
 
           await page.goBack();
