@@ -9,11 +9,13 @@
  * queues a pattern of the sculpt); window sizes 390 × 844 and 1280 × 800 as in the app-shell test.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createOwnDatabase, type OwnDatabase } from './own-database';
 import { createStudioFixture, fetchSeams, replaceSeams, type StudioFixture } from '../../bench/studio-api';
 
 const root = path.resolve(__dirname, '../..');
@@ -47,6 +49,8 @@ function freePort(): Promise<number> {
 
 const children: ChildProcess[] = [];
 let log = '';
+let ownDatabase: OwnDatabase | null = null;
+let filesDir = '';
 let browser: Browser | null = null;
 let fixture: StudioFixture | null = null;
 
@@ -104,17 +108,19 @@ describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a brows
     const databaseUrl = process.env.DATABASE_URL;
     if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the browser test through `npm test`, which starts the test database.');
     mkdirSync(artifacts, { recursive: true });
+    ownDatabase = await createOwnDatabase(databaseUrl, 'ss_studio_e2e');
+    filesDir = mkdtempSync(path.join(tmpdir(), 'ss-studio-e2e-'));
     const port = await freePort();
     const env = {
       ...process.env,
       PORT: String(port),
       WEB_ROOT: 'dist',
-      // The default file store: other browser tests' workers share this database's job queue and may take this
-      // test's sculpt job, so every worker must see the same files.
+      // A database and file store of this suite's own, so its worker takes only this suite's jobs.
       STORAGE: 'disk',
+      FILES_DIR: filesDir,
       SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
       SIGNUP_RATE_LIMIT: '1000',
-      DATABASE_URL: databaseUrl,
+      DATABASE_URL: ownDatabase.url,
     };
     start('server/index.ts', env);
     start('server/worker.ts', env);
@@ -138,6 +144,8 @@ describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a brows
         if (child.exitCode === null) child.kill('SIGKILL');
       }),
     );
+    await ownDatabase?.drop();
+    if (filesDir) rmSync(filesDir, { recursive: true, force: true });
   });
 
   it('draws a seam through three clicked points, saves it, keeps it after a reload and shows the pieces — 1280 px', async () => {
