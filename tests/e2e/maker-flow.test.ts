@@ -13,13 +13,14 @@
  * drop (150 + 12 mm).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { helmetObj } from '../../bench/studio-api';
+import { createOwnDatabase, type OwnDatabase } from './own-database';
 
 const root = path.resolve(__dirname, '../..');
 const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
@@ -46,6 +47,8 @@ const children: { name: string; proc: ChildProcess; log: string }[] = [];
 let base = '';
 let browser: Browser | null = null;
 let modelPath = '';
+let tmp = '';
+let ownDatabase: OwnDatabase | null = null;
 
 function startChild(name: string, script: string, env: NodeJS.ProcessEnv) {
   const proc = spawn(process.execPath, ['--import', 'tsx', script], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
@@ -92,7 +95,9 @@ describe.skipIf(!haveDist)(
       const databaseUrl = process.env.DATABASE_URL;
       if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the browser test through `npm test`, which starts the test database.');
       mkdirSync(artifacts, { recursive: true });
-      const tmp = mkdtempSync(path.join(os.tmpdir(), 'ss-maker-flow-'));
+      tmp = mkdtempSync(path.join(os.tmpdir(), 'ss-maker-flow-'));
+      // A database of this suite's own, so its worker takes only this suite's jobs.
+      ownDatabase = await createOwnDatabase(databaseUrl, 'ss_maker_e2e');
       modelPath = path.join(tmp, 'demo-helm.obj');
       writeFileSync(modelPath, helmetObj().text);
       const port = await freePort();
@@ -102,7 +107,7 @@ describe.skipIf(!haveDist)(
         PORT: String(port),
         WEB_ROOT: 'dist',
         SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
-        DATABASE_URL: databaseUrl,
+        DATABASE_URL: ownDatabase.url,
         STORAGE: 'disk',
         FILES_DIR: path.join(tmp, 'files'),
         LOG_LEVEL: 'warn',
@@ -125,6 +130,8 @@ describe.skipIf(!haveDist)(
         await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
         if (proc.exitCode === null) proc.kill('SIGKILL');
       }
+      await ownDatabase?.drop();
+      if (tmp) rmSync(tmp, { recursive: true, force: true });
     });
 
     for (const vp of [
