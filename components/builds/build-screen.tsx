@@ -15,6 +15,7 @@ import { useBuild, useBuildOverview, useDeleteBuild, useRenameBuild } from '../.
 import { useSculpts } from '../../hooks/use-sculpts';
 import { MembersPanel } from '../members/members-panel';
 import { PublishPackForm } from '../packs/publish-pack-form';
+import { usePackCoverPicture } from '../../hooks/use-pack-cover-picture';
 import { SculptVersions } from '../sculpts/sculpt-versions';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
@@ -43,6 +44,7 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
   const targetMembership = memberships.find((m) => m.shopId === targetShopId) ?? null;
   const build = useBuild(targetShopId, buildId);
   const overview = useBuildOverview(targetShopId, buildId);
+  const coverPicture = usePackCoverPicture(buildId);
   const sculpts = useSculpts(targetShopId, buildId);
   const rename = useRenameBuild(targetShopId);
   const remove = useDeleteBuild(targetShopId);
@@ -181,7 +183,7 @@ export function BuildScreen({ buildId, shopId }: { buildId: string; shopId: stri
       {targetMembership?.role === 'owner' ? (
         packOpen ? (
           <View style={styles.block}>
-            <PublishPackForm shopId={targetMembership.shopId} buildId={b.id} />
+            <PublishPackForm shopId={targetMembership.shopId} buildId={b.id} coverDataUrl={coverPicture.picture} />
             <Button label="Close the pack form" tone="quiet" compact onPress={() => setPackOpen(false)} style={styles.retry} />
           </View>
         ) : (

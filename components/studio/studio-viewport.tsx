@@ -72,6 +72,9 @@ export default function StudioViewport(props: StudioViewportProps) {
     <Canvas
       frameloop="demand"
       dpr={[1, 2]}
+      // The drawn frame is kept so the "Cover picture" tool can read it back between frames.
+      gl={{ preserveDrawingBuffer: true }}
+      onCreated={({ gl }) => gl.domElement.setAttribute('data-studio-view', '')}
       camera={{ position: [c.x, c.y - 3 * r, c.z], up: [0, 0, 1], near: r / 200, far: r * 50, fov: 40 }}
       style={{ touchAction: 'none' }}
       aria-label={props.description}

@@ -33,6 +33,7 @@ import {
   seamsWithoutCopy,
   type SeamSetDraft,
 } from './seam-set-edits';
+import { CoverPictureButton } from './cover-picture-button';
 import { useStudioKeys, type StudioKeyAction } from './studio-keys';
 import StudioViewport, { type SurfacePick } from './studio-viewport';
 import { BudgetChooser, SaveLine, saveStatusText, ShortcutsHelp, StretchLegend, ToolButton, ToolGroup } from './studio-tools';
@@ -359,6 +360,7 @@ export default function StudioWorkspace({ shopId, buildId, sculptId, mesh, seams
           </>
         ) : null}
         <ToolButton label="Stretch map" hint={wide ? 'S' : undefined} on={stretchOn} disabled={!facesOk} onPress={() => setStretchOn((s) => !s)} accessibilityLabel="Show the stretch map" />
+        {canEdit ? <CoverPictureButton buildId={buildId} /> : null}
         {wide ? <ToolButton label="Keys" hint="?" on={showHelp} onPress={() => setShowHelp((s) => !s)} accessibilityLabel="Keyboard shortcuts" /> : null}
       </ToolGroup>
     </View>

@@ -225,6 +225,31 @@ describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a brows
     await page.keyboard.press('?');
     await expect.poll(() => page.getByRole('dialog', { name: 'Studio keyboard shortcuts' }).isVisible(), { timeout: 5_000 }).toBe(true);
     await page.screenshot({ path: path.join(artifacts, 'studio-1280-6-keys.png') });
+    await page.keyboard.press('Escape');
+
+    // The pack's cover picture from the 3D view: a PNG (signature per the PNG spec, ISO/IEC 15948 §5.2) of the
+    // drawn model, not a blank frame — more than one colour must appear in it.
+    await page.getByRole('button', { name: "Take this view as the pattern pack's cover picture" }).click();
+    await expect.poll(() => page.getByText('Cover picture taken').isVisible(), { timeout: 5_000 }).toBe(true);
+    const cover = await page.evaluate(async (buildId) => {
+      const url = sessionStorage.getItem(`sheetsmith-pack-cover:${buildId}`) ?? '';
+      const img = new Image();
+      img.src = url;
+      await img.decode();
+      const c = document.createElement('canvas');
+      c.width = img.width;
+      c.height = img.height;
+      const ctx = c.getContext('2d')!;
+      ctx.drawImage(img, 0, 0);
+      const data = ctx.getImageData(0, 0, c.width, c.height).data;
+      const colours = new Set<number>();
+      for (let i = 0; i < data.length && colours.size < 50; i += 4 * 97) colours.add((data[i] << 16) | (data[i + 1] << 8) | data[i + 2]);
+      const head = atob(url.split(',')[1] ?? '').slice(0, 8);
+      return { head: Array.from(head, (ch) => ch.charCodeAt(0)), colours: colours.size, width: img.width };
+    }, fixture!.buildId);
+    expect(cover.head).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    expect(cover.width).toBeGreaterThan(100);
+    expect(cover.colours).toBeGreaterThan(5);
     expect(errors).toEqual([]);
     await context.close();
   }, 240_000);
