@@ -17,6 +17,11 @@ import { palette, space } from '../ui/theme';
 import { PieceChecklist } from './piece-checklist';
 import { SeamLookup } from './seam-lookup';
 
+/** "1 copy", "12 copies". */
+function copyCount(n: number): string {
+  return `${n} ${n === 1 ? 'copy' : 'copies'}`;
+}
+
 /** Route screen for /builds/:id/bench. */
 export function BenchScreen({ buildId, shopParam }: { buildId: string; shopParam: string | null }) {
   return (
@@ -45,7 +50,7 @@ function BenchBody({ ctx }: { ctx: BuildPageContext }) {
                   Pieces to cut
                 </Text>
                 <Text variant="mono">
-                  {done} of {total} pieces done · {d.pieces.reduce((n, p) => n + p.quantity, 0)} copies
+                  {done} of {total} {total === 1 ? 'piece' : 'pieces'} done · {copyCount(d.pieces.reduce((n, p) => n + p.quantity, 0))}
                 </Text>
               </View>
               {!ctx.canEdit ? <Notice tone="note">You follow this build as a client: the checklist is shown, not changed.</Notice> : null}

@@ -91,7 +91,7 @@ export function MemberRow({ shopId, member, manage: isOwner, isSelf }: { shopId:
           )}
         </View>
       ) : null}
-      {isOwner && isSelf ? <Text variant="small">Another owner can change your role or remove you.</Text> : null}
+      {isOwner && isSelf ? <Text variant="small">Only another owner can change your role; a shop always keeps at least one owner.</Text> : null}
       {error ? <Notice tone="error">{error}</Notice> : null}
     </View>
   );

@@ -60,7 +60,7 @@ function PrintSetRow({ set }: { set: PrintSetView }) {
   return (
     <View style={styles.set}>
       <Text variant="label">
-        {set.page.toUpperCase()} · {MODES.find((m) => m.value === set.mode)?.label ?? set.mode} · {set.pieceCount} pieces · {formatWhen(set.createdAt)}
+        {set.page.toUpperCase()} · {MODES.find((m) => m.value === set.mode)?.label ?? set.mode} · {set.pieceCount} {set.pieceCount === 1 ? 'piece' : 'pieces'} · {formatWhen(set.createdAt)}
       </Text>
       {isJobActive(set.status) ? <JobProgress label={set.status === 'queued' ? 'Waiting to make the print set' : 'Making the print set'} progress={null} stage={null} /> : null}
       {set.status === 'failed' ? <Notice tone="error" title="This print set failed">{set.error ?? 'The job stopped without a message.'}</Notice> : null}
