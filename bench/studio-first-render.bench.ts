@@ -10,31 +10,17 @@
  * upload's default working resolution of 200,000 reduces it slightly). The server and worker it starts use the
  * default file store, since any worker on the same database may take the sculpt's processing job.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { cpus } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium } from 'playwright-core';
 import type { BenchRow } from './bench-row';
+import { appProcesses, freePort, launchBrowser } from '../tests/e2e/browser-harness';
 import { createStudioFixture } from './studio-api';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..');
 const jsDir = join(root, 'dist', '_expo', 'static', 'js', 'web');
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--use-angle=swiftshader',
-  '--enable-unsafe-swiftshader',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 /** Loads of the studio page measured; the median is reported. */
 const LOADS = 3;
 
@@ -55,36 +41,16 @@ function bundleFigures(): BundleFigures | null {
   return { entryBytes: size('entry-'), studioChunkBytes: size('studio-workspace-'), seamWorkerBytes: size('seam-worker-'), threeInEntry };
 }
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
 async function firstRender(databaseUrl: string): Promise<{ medianMs: number; allMs: number[]; triangles: number }> {
   const port = await freePort();
   const env = { ...process.env, PORT: String(port), WEB_ROOT: 'dist', STORAGE: 'disk', SIGNUP_RATE_LIMIT: '1000', DATABASE_URL: databaseUrl, LOG_LEVEL: 'warn' };
-  const children: ChildProcess[] = ['server/index.ts', 'server/worker.ts'].map((s) =>
-    spawn(process.execPath, ['--import', 'tsx', s], { cwd: root, env, stdio: 'ignore' }),
-  );
-  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+  const app = appProcesses();
+  app.start('server', 'server/index.ts', env);
+  app.start('worker', 'server/worker.ts', env);
+  const browser = await launchBrowser();
   try {
     const base = `http://127.0.0.1:${port}`;
-    const until = Date.now() + 60_000;
-    for (;;) {
-      try {
-        if ((await fetch(`${base}/api/health`)).ok) break;
-      } catch {
-        // not listening yet
-      }
-      if (Date.now() > until) throw new Error('the server did not start within 60 s');
-      await new Promise((r) => setTimeout(r, 250));
-    }
+    await app.waitForHealth(`${base}/api/health`, 60_000);
     const f = await createStudioFixture(base, { segments: 440, rings: 220, brimRings: 8 }, 300_000);
     const times: number[] = [];
     for (let i = 0; i < LOADS; i++) {
@@ -101,7 +67,7 @@ async function firstRender(databaseUrl: string): Promise<{ medianMs: number; all
     return { medianMs: sorted[Math.floor(sorted.length / 2)], allMs: times, triangles: f.triangles };
   } finally {
     await browser.close();
-    for (const c of children) c.kill('SIGTERM');
+    await app.stop();
   }
 }
 

@@ -5,14 +5,12 @@
  * runs again) and a caught mail (reads its text and its HTML in a sandboxed frame), at 390 and 1280 px.
  * Screenshots go to tests/artifacts/admin-*.png.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { existsSync, mkdirSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import nodemailer from 'nodemailer';
 import type PgBoss from 'pg-boss';
-import { chromium, type Browser } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { memberships, shops } from '../../db/schema-core';
 import { startMailCatcher, type MailCatcher } from '../../server/dev/mail-catcher';
@@ -20,29 +18,14 @@ import { SESSION_COOKIE, sessionKey, signSessionToken } from '../../server/auth/
 import { startQueue, stopQueue } from '../../server/jobs/queue';
 import { createLogger } from '../../server/logger';
 import { insertPerson, makeTestApp, type TestContext } from '../server/helpers';
+import { appProcesses, artifacts, freePort, haveDist, launchBrowser } from './browser-harness';
 
-const root = path.resolve(__dirname, '../..');
-const artifacts = path.join(root, 'tests', 'artifacts');
-const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
 const SECRET = 'e2e-admin-session-secret-long-enough-0123456789';
-const chromiumArgs = ['--headless', '--no-sandbox', '--disable-gpu', '--use-angle=swiftshader', '--enable-unsafe-swiftshader', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 const tag = `e2eadm${randomUUID().slice(0, 6)}`;
 const QUEUE = `ops-e2e-probe-${tag}`;
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
 let ctx: TestContext;
-let server: ChildProcess | null = null;
-let serverLog = '';
+const app = appProcesses();
 let base = '';
 let browser: Browser | null = null;
 let catcher: MailCatcher;
@@ -78,33 +61,14 @@ describe.skipIf(!haveDist)(haveDist ? 'site admin pages in a browser' : 'site ad
 
     const port = await freePort();
     base = `http://127.0.0.1:${port}`;
-    server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-      cwd: root,
-      env: { ...process.env, PORT: String(port), WEB_ROOT: 'dist', SESSION_SECRET: SECRET, MAIL_CATCHER_URL: `http://127.0.0.1:${catcher.httpPort}`, LOG_LEVEL: 'warn' },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    const keep = (chunk: Buffer) => {
-      serverLog = (serverLog + chunk.toString()).slice(-20_000);
-    };
-    server.stdout?.on('data', keep);
-    server.stderr?.on('data', keep);
-    for (let i = 0; i < 240; i++) {
-      if (server.exitCode !== null) throw new Error(`server exited: ${serverLog.slice(-3000)}`);
-      const ok = await fetch(`${base}/api/health`).then((r) => r.ok, () => false);
-      if (ok) break;
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    app.start('server', 'server/index.ts', { ...process.env, PORT: String(port), WEB_ROOT: 'dist', SESSION_SECRET: SECRET, MAIL_CATCHER_URL: `http://127.0.0.1:${catcher.httpPort}`, LOG_LEVEL: 'warn' });
+    await app.waitForHealth(`${base}/api/health`, 60_000);
+    browser = await launchBrowser();
   }, 90_000);
 
   afterAll(async () => {
     await browser?.close();
-    if (server && server.exitCode === null) {
-      const exited = new Promise((r) => server!.once('exit', r));
-      server.kill('SIGTERM');
-      await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-      if (server.exitCode === null) server.kill('SIGKILL');
-    }
+    await app.stop();
     await boss?.offWork(QUEUE).catch(() => undefined);
     await stopQueue(boss, 5_000).catch(() => undefined);
     await catcher?.close();

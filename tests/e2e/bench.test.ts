@@ -8,19 +8,16 @@
  * Expected values come from the stored pattern document (the engine's output for this build) and the API
  * contract (CONTRACTS.md: PATCH …/pieces/:label/progress; the bench refreshes every 10 s, issue 5 point 6).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { and, desc, eq } from 'drizzle-orm';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb, createPool } from '../../db/client';
 import { buildPieces } from '../../db/schema-bench';
 import { builds, memberships, shops, users } from '../../db/schema-core';
 import { patterns } from '../../db/schema-sculpts';
-import { runMigrations } from '../../db/migrate';
 import { seedDemoBuild } from '../../db/seed-demo-build';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import { hashPassword } from '../../server/auth/passwords';
@@ -28,36 +25,16 @@ import { runPatternJob } from '../../server/patterns/pattern-job';
 import { runPrintSetJob } from '../../server/print-sets/print-set-job';
 import { runSheetPlanJob } from '../../server/sheet-plans/sheet-plan-job';
 import { localDiskStore } from '../../server/storage/local-disk-store';
+import { appProcesses, artifacts, freePort, haveDist, launchBrowser } from './browser-harness';
+import { createOwnDatabase, type OwnDatabase } from './own-database';
 
-const root = path.resolve(__dirname, '../..');
-const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
-const artifacts = path.join(root, 'tests', 'artifacts');
-
-// Flags measured on this kind of machine (shared/STACK.md).
-const chromiumArgs = [
-  '--headless', '--no-sandbox', '--disable-gpu', '--use-angle=swiftshader', '--enable-unsafe-swiftshader', '--disable-quic',
-  '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync',
-];
 const PASSWORD = 'offcut-bevel-30deg';
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
-let server: ChildProcess | null = null;
-let serverLog = '';
+const app = appProcesses();
 let base = '';
 let browser: Browser | null = null;
 let filesDir = '';
-let ownDatabase = '';
-let ownDatabaseUrl = '';
+let ownDatabase: OwnDatabase | null = null;
 let pool: ReturnType<typeof createPool> | null = null;
 let db: ReturnType<typeof createDb>;
 const people = { owner: '', crew: '', client: '' };
@@ -65,23 +42,6 @@ const emails = { owner: '', crew: '', client: '' };
 let shopId = '';
 let buildId = '';
 let doc: PatternDoc;
-
-async function waitForHealth(url: string, ms: number): Promise<void> {
-  const until = Date.now() + ms;
-  let last = 'no answer';
-  while (Date.now() < until) {
-    if (server?.exitCode !== null && server?.exitCode !== undefined) throw new Error(`server exited with code ${server.exitCode}:\n${serverLog.slice(-3000)}`);
-    try {
-      const res = await fetch(url);
-      if (res.ok) return;
-      last = `HTTP ${res.status}`;
-    } catch (e) {
-      last = String(e);
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`/api/health did not answer OK within ${ms} ms (last: ${last}). Server output:\n${serverLog.slice(-3000)}`);
-}
 
 async function signedIn(who: keyof typeof emails, width: number, height: number): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
   const context = await browser!.newContext({ viewport: { width, height } });
@@ -118,17 +78,8 @@ describe.skipIf(!haveDist)(
       // A database of this file's own: the jobs it queues (pattern, sheet plan, print set) are run here, in the
       // test process, and a worker of another browser suite sharing the database's queue must not take them
       // (it would look for this build's files in its own file store).
-      const admin = new URL(databaseUrl);
-      ownDatabase = `ss_bench_e2e_${Date.now().toString(36)}_${process.pid}`;
-      admin.pathname = '/postgres';
-      const adminPool = createPool(admin.toString(), 1);
-      await adminPool.query(`CREATE DATABASE ${ownDatabase}`);
-      await adminPool.end();
-      const own = new URL(databaseUrl);
-      own.pathname = `/${ownDatabase}`;
-      ownDatabaseUrl = own.toString();
-      pool = createPool(ownDatabaseUrl, 4);
-      await runMigrations(pool);
+      ownDatabase = await createOwnDatabase(databaseUrl, 'ss_bench_e2e');
+      pool = createPool(ownDatabase.url, 4);
       db = createDb(pool);
       const stamp = `${Date.now().toString(36)}${Math.floor(Math.random() * 1e6).toString(36)}`;
       const hash = await hashPassword(PASSWORD);
@@ -152,46 +103,25 @@ describe.skipIf(!haveDist)(
 
       const port = await freePort();
       base = `http://127.0.0.1:${port}`;
-      server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-        cwd: root,
-        env: {
-          ...process.env,
-          PORT: String(port),
-          WEB_ROOT: 'dist',
-          FILES_DIR: filesDir,
-          STORAGE: 'disk',
-          SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
-          DATABASE_URL: ownDatabaseUrl,
-        },
-        stdio: ['ignore', 'pipe', 'pipe'],
+      app.start('server', 'server/index.ts', {
+        ...process.env,
+        PORT: String(port),
+        WEB_ROOT: 'dist',
+        FILES_DIR: filesDir,
+        STORAGE: 'disk',
+        SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
+        DATABASE_URL: ownDatabase.url,
       });
-      const keep = (chunk: Buffer) => {
-        serverLog = (serverLog + chunk.toString()).slice(-20_000);
-      };
-      server.stdout?.on('data', keep);
-      server.stderr?.on('data', keep);
-      await waitForHealth(`${base}/api/health`, 60_000);
-      browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+      await app.waitForHealth(`${base}/api/health`, 60_000);
+      browser = await launchBrowser();
     });
 
     afterAll(async () => {
       await browser?.close();
-      const child = server;
-      if (child && child.exitCode === null) {
-        const exited = new Promise((r) => child.once('exit', r));
-        child.kill('SIGTERM');
-        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-        if (child.exitCode === null) child.kill('SIGKILL');
-      }
+      await app.stop();
       await pool?.end();
       if (filesDir) rmSync(filesDir, { recursive: true, force: true });
-      if (ownDatabase && process.env.DATABASE_URL) {
-        const admin = new URL(process.env.DATABASE_URL);
-        admin.pathname = '/postgres';
-        const adminPool = createPool(admin.toString(), 1);
-        await adminPool.query(`DROP DATABASE IF EXISTS ${ownDatabase} WITH (FORCE)`);
-        await adminPool.end();
-      }
+      await ownDatabase?.drop();
     });
 
     it('bench at 390 px: seam look-up, a tick that survives a reload, another member\'s tick, a refused tick rolled back, notes, cautions', async () => {
@@ -282,7 +212,7 @@ describe.skipIf(!haveDist)(
         expect(errors).toEqual([]);
       } catch (e) {
         await shot(page, 'bench-390-failure').catch(() => undefined);
-        throw new Error(`${(e as Error).message}\nServer output:\n${serverLog.slice(-2000)}`);
+        throw new Error(`${(e as Error).message}\nServer output:\n${app.logs(2000)}`);
       } finally {
         await context.close();
       }

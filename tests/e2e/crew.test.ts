@@ -9,62 +9,17 @@
  * Expected texts come from this issue's API contract (CONTRACTS.md: routes, roles) and the request schemas in
  * db/validation.ts and db/validation-crew.ts (field messages).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type BrowserContext } from 'playwright-core';
+import type { Browser, BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startMailCatcher, type CaughtMail, type MailCatcher } from '../../server/dev/mail-catcher';
+import { appProcesses, artifacts, freePort, haveDist, launchBrowser } from './browser-harness';
 
-const root = path.resolve(__dirname, '../..');
-const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
-const artifacts = path.join(root, 'tests', 'artifacts');
-
-// Flags measured on this kind of machine (shared/STACK.md).
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--use-angle=swiftshader',
-  '--enable-unsafe-swiftshader',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
-let server: ChildProcess | null = null;
-let serverLog = '';
+const app = appProcesses();
 let base = '';
 let browser: Browser | null = null;
 let catcher: MailCatcher | null = null;
-
-async function waitForHealth(url: string, ms: number): Promise<void> {
-  const until = Date.now() + ms;
-  while (Date.now() < until) {
-    if (server?.exitCode !== null && server?.exitCode !== undefined) throw new Error(`server exited with code ${server.exitCode}:\n${serverLog.slice(-3000)}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`/api/health did not answer within ${ms} ms. Server output:\n${serverLog.slice(-3000)}`);
-}
 
 async function mailTo(to: string, subject: RegExp): Promise<CaughtMail> {
   const until = Date.now() + 15_000;
@@ -84,39 +39,24 @@ describe.skipIf(!haveDist)(haveDist ? 'crew and clients in a browser' : 'crew an
     catcher = await startMailCatcher({ smtpPort: 0, httpPort: 0 });
     const port = await freePort();
     base = `http://127.0.0.1:${port}`;
-    server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-      cwd: root,
-      env: {
-        ...process.env,
-        PORT: String(port),
-        WEB_ROOT: 'dist',
-        SESSION_SECRET: 'e2e-crew-session-secret-that-is-long-enough-0123',
-        DATABASE_URL: databaseUrl,
-        SMTP_URL: `smtp://127.0.0.1:${catcher.smtpPort}`,
-        PUBLIC_URL: base,
-        SIGNUP_RATE_LIMIT: '1000',
-        PASSWORD_RESET_RATE_LIMIT_IP: '1000',
-      },
-      stdio: ['ignore', 'pipe', 'pipe'],
+    app.start('server', 'server/index.ts', {
+      ...process.env,
+      PORT: String(port),
+      WEB_ROOT: 'dist',
+      SESSION_SECRET: 'e2e-crew-session-secret-that-is-long-enough-0123',
+      DATABASE_URL: databaseUrl,
+      SMTP_URL: `smtp://127.0.0.1:${catcher.smtpPort}`,
+      PUBLIC_URL: base,
+      SIGNUP_RATE_LIMIT: '1000',
+      PASSWORD_RESET_RATE_LIMIT_IP: '1000',
     });
-    const keep = (chunk: Buffer) => {
-      serverLog = (serverLog + chunk.toString()).slice(-20_000);
-    };
-    server.stdout?.on('data', keep);
-    server.stderr?.on('data', keep);
-    await waitForHealth(`${base}/api/health`, 60_000);
-    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    await app.waitForHealth(`${base}/api/health`, 60_000);
+    browser = await launchBrowser();
   }, 90_000);
 
   afterAll(async () => {
     await browser?.close();
-    const child = server;
-    if (child && child.exitCode === null) {
-      const exited = new Promise((r) => child.once('exit', r));
-      child.kill('SIGTERM');
-      await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-      if (child.exitCode === null) child.kill('SIGKILL');
-    }
+    await app.stop();
     await catcher?.close();
   });
 

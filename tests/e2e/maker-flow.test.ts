@@ -12,71 +12,21 @@
  * x and y are the dome plus the brim on both sides (210 + 60, 240 + 60 mm), z is the dome height plus the brim's
  * drop (150 + 12 mm).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { helmetObj } from '../../bench/studio-api';
+import { appProcesses, artifacts, freePort, haveDist, launchBrowser } from './browser-harness';
 import { createOwnDatabase, type OwnDatabase } from './own-database';
 
-const root = path.resolve(__dirname, '../..');
-const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
-const artifacts = path.join(root, 'tests', 'artifacts');
-
-// Flags measured on this kind of machine (shared/STACK.md).
-const chromiumArgs = [
-  '--headless', '--no-sandbox', '--disable-gpu', '--use-angle=swiftshader', '--enable-unsafe-swiftshader', '--disable-quic',
-  '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync',
-];
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
-const children: { name: string; proc: ChildProcess; log: string }[] = [];
+const app = appProcesses();
 let base = '';
 let browser: Browser | null = null;
 let modelPath = '';
 let tmp = '';
 let ownDatabase: OwnDatabase | null = null;
-
-function startChild(name: string, script: string, env: NodeJS.ProcessEnv) {
-  const proc = spawn(process.execPath, ['--import', 'tsx', script], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
-  const entry = { name, proc, log: '' };
-  const keep = (chunk: Buffer) => {
-    entry.log = (entry.log + chunk.toString()).slice(-20_000);
-  };
-  proc.stdout?.on('data', keep);
-  proc.stderr?.on('data', keep);
-  children.push(entry);
-  return entry;
-}
-
-const logs = () => children.map((c) => `--- ${c.name} (exit ${c.proc.exitCode}) ---\n${c.log.slice(-3000)}`).join('\n');
-
-async function waitForHealth(url: string, ms: number): Promise<void> {
-  const until = Date.now() + ms;
-  while (Date.now() < until) {
-    if (children.some((c) => c.proc.exitCode !== null)) throw new Error(`a child process exited early:\n${logs()}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`/api/health did not answer within ${ms} ms:\n${logs()}`);
-}
 
 /** Where the 1280 px run left its build: the session (cookies) and the build's studio address. */
 let wideFlow: { storage: Awaited<ReturnType<import('playwright-core').BrowserContext['storageState']>>; studioUrl: string } | null = null;
@@ -114,22 +64,16 @@ describe.skipIf(!haveDist)(
         // Every browser test signs up from loopback; the sign-up limit (10 an hour) is the API tests' business.
         SIGNUP_RATE_LIMIT: '1000',
       };
-      startChild('server', 'server/index.ts', env);
-      await waitForHealth(`${base}/api/health`, 60_000);
+      app.start('server', 'server/index.ts', env);
+      await app.waitForHealth(`${base}/api/health`, 60_000);
       // The worker takes the sculpt-process job from the same PostgreSQL queue, as `npm start` runs it.
-      startChild('worker', 'server/worker.ts', env);
-      browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+      app.start('worker', 'server/worker.ts', env);
+      browser = await launchBrowser();
     }, 90_000);
 
     afterAll(async () => {
       await browser?.close();
-      for (const { proc } of children) {
-        if (proc.exitCode !== null) continue;
-        const exited = new Promise((r) => proc.once('exit', r));
-        proc.kill('SIGTERM');
-        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-        if (proc.exitCode === null) proc.kill('SIGKILL');
-      }
+      await app.stop();
       await ownDatabase?.drop();
       if (tmp) rmSync(tmp, { recursive: true, force: true });
     });
@@ -220,7 +164,7 @@ describe.skipIf(!haveDist)(
           if (vp.wide) wideFlow = { storage: await context.storageState(), studioUrl };
         } catch (e) {
           await shot('failure').catch(() => undefined);
-          throw new Error(`${(e as Error).message}\n${logs()}`);
+          throw new Error(`${(e as Error).message}\n${app.logs()}`);
         } finally {
           await context.close();
         }
@@ -304,7 +248,7 @@ describe.skipIf(!haveDist)(
         expect(pageErrors).toEqual([]);
       } catch (e) {
         await shot('failure-2').catch(() => undefined);
-        throw new Error(`${(e as Error).message}\n${logs()}`);
+        throw new Error(`${(e as Error).message}\n${app.logs()}`);
       } finally {
         await context.close();
       }

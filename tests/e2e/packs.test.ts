@@ -4,12 +4,10 @@
  * ("check your e-mail") → the receipt arrives in the catcher → its link opens the download page → the PDF
  * downloads and reads as a PDF. On a phone-sized and a laptop-sized window; screenshots go to tests/artifacts/.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb, createPool } from '../../db/client';
 import { builds, memberships, shops, users } from '../../db/schema-core';
@@ -17,49 +15,18 @@ import { DEMO_PACKS, seedDemoPacks } from '../../db/seed-packs';
 import { startMailCatcher, type MailCatcher } from '../../server/dev/mail-catcher';
 import { startPaymentFake, type PaymentFake } from '../../server/dev/payment-fake';
 import { localDiskStore } from '../../server/storage/local-disk-store';
+import { appProcesses, artifacts, freePort, haveDist, launchBrowser } from './browser-harness';
 
-const root = path.resolve(__dirname, '../..');
-const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
-const artifacts = path.join(root, 'tests', 'artifacts');
 const API_KEY = 'e2e-pay-key-0123456789';
 const SECRET = 'e2e-webhook-secret-0123456789';
 
-// Flags measured on this kind of machine (shared/STACK.md).
-const chromiumArgs = ['--headless', '--no-sandbox', '--disable-gpu', '--use-angle=swiftshader', '--enable-unsafe-swiftshader', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
-let server: ChildProcess | null = null;
-let serverLog = '';
+const app = appProcesses();
 let base = '';
 let browser: Browser | null = null;
 let fake: PaymentFake;
 let catcher: MailCatcher;
 const tag = Math.random().toString(36).slice(2, 8);
 const paidDemo = { ...DEMO_PACKS[0], slug: `${DEMO_PACKS[0].slug}-${tag}`, title: `${DEMO_PACKS[0].title} ${tag}` };
-
-async function waitForHealth(url: string, ms: number): Promise<void> {
-  const until = Date.now() + ms;
-  while (Date.now() < until) {
-    if (server?.exitCode !== null && server?.exitCode !== undefined) throw new Error(`server exited (${server.exitCode}):\n${serverLog.slice(-3000)}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`/api/health did not answer within ${ms} ms:\n${serverLog.slice(-3000)}`);
-}
 
 describe.skipIf(!haveDist)(haveDist ? 'buying a pattern pack in a browser' : 'buying a pattern pack — SKIPPED: dist/ is missing; run `npm run web:build`', () => {
   beforeAll(async () => {
@@ -87,44 +54,29 @@ describe.skipIf(!haveDist)(haveDist ? 'buying a pattern pack in a browser' : 'bu
       await pool.end();
     }
 
-    server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-      cwd: root,
-      env: {
-        ...process.env,
-        PORT: String(port),
-        WEB_ROOT: 'dist',
-        STORAGE: 'disk',
-        FILES_DIR: filesDir,
-        SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
-        DATABASE_URL: databaseUrl,
-        PUBLIC_URL: base,
-        SMTP_URL: `smtp://127.0.0.1:${catcher.smtpPort}`,
-        PAY_API_URL: fake.url,
-        PAY_API_KEY: API_KEY,
-        PAY_WEBHOOK_SECRET: SECRET,
-        // Each run checks out twice from loopback; repeated runs within the window must not hit the limit.
-        CHECKOUT_RATE_LIMIT: '10000',
-      },
-      stdio: ['ignore', 'pipe', 'pipe'],
+    app.start('server', 'server/index.ts', {
+      ...process.env,
+      PORT: String(port),
+      WEB_ROOT: 'dist',
+      STORAGE: 'disk',
+      FILES_DIR: filesDir,
+      SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
+      DATABASE_URL: databaseUrl,
+      PUBLIC_URL: base,
+      SMTP_URL: `smtp://127.0.0.1:${catcher.smtpPort}`,
+      PAY_API_URL: fake.url,
+      PAY_API_KEY: API_KEY,
+      PAY_WEBHOOK_SECRET: SECRET,
+      // Each run checks out twice from loopback; repeated runs within the window must not hit the limit.
+      CHECKOUT_RATE_LIMIT: '10000',
     });
-    const keep = (chunk: Buffer) => {
-      serverLog = (serverLog + chunk.toString()).slice(-20_000);
-    };
-    server.stdout?.on('data', keep);
-    server.stderr?.on('data', keep);
-    await waitForHealth(`${base}/api/health`, 60_000);
-    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    await app.waitForHealth(`${base}/api/health`, 60_000);
+    browser = await launchBrowser();
   });
 
   afterAll(async () => {
     await browser?.close();
-    const child = server;
-    if (child && child.exitCode === null) {
-      const exited = new Promise((r) => child.once('exit', r));
-      child.kill('SIGTERM');
-      await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-      if (child.exitCode === null) child.kill('SIGKILL');
-    }
+    await app.stop();
     await fake?.close();
     await catcher?.close();
   });

@@ -7,66 +7,15 @@
  * db/validation.ts (field messages) and the window widths in the H2 brief (390 × 844 and 1280 × 800; the side
  * bar appears from 1024 px).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { appProcesses, artifacts, freePort, haveDist, launchBrowser } from './browser-harness';
 
-const root = path.resolve(__dirname, '../..');
-const distIndex = path.join(root, 'dist', 'index.html');
-const artifacts = path.join(root, 'tests', 'artifacts');
-const haveDist = existsSync(distIndex);
-
-// Flags measured on this kind of machine (shared/STACK.md).
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--use-angle=swiftshader',
-  '--enable-unsafe-swiftshader',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
-let server: ChildProcess | null = null;
-let serverLog = '';
+const app = appProcesses();
 let base = '';
 let browser: Browser | null = null;
-
-async function waitForHealth(url: string, ms: number): Promise<void> {
-  const until = Date.now() + ms;
-  let last = 'no answer';
-  while (Date.now() < until) {
-    if (server?.exitCode !== null && server?.exitCode !== undefined) {
-      throw new Error(`server exited with code ${server.exitCode} before /api/health answered:\n${serverLog.slice(-3000)}`);
-    }
-    try {
-      const res = await fetch(url);
-      if (res.ok) return;
-      last = `HTTP ${res.status}: ${(await res.text()).slice(0, 300)}`;
-    } catch (e) {
-      last = String(e);
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`/api/health did not answer OK within ${ms} ms (last: ${last}). Server output:\n${serverLog.slice(-3000)}`);
-}
 
 describe.skipIf(!haveDist)(
   haveDist ? 'app shell in a browser' : 'app shell in a browser — SKIPPED: dist/ is missing; run `npm run web:build` (npm test does it)',
@@ -77,37 +26,22 @@ describe.skipIf(!haveDist)(
       mkdirSync(artifacts, { recursive: true });
       const port = await freePort();
       base = `http://127.0.0.1:${port}`;
-      server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-        cwd: root,
-        env: {
-          ...process.env,
-          PORT: String(port),
-          WEB_ROOT: 'dist',
-          SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
-          DATABASE_URL: databaseUrl,
-          // Every browser test signs up from loopback; the sign-up limit (10 an hour) is the API tests' business.
-          SIGNUP_RATE_LIMIT: '1000',
-        },
-        stdio: ['ignore', 'pipe', 'pipe'],
+      app.start('server', 'server/index.ts', {
+        ...process.env,
+        PORT: String(port),
+        WEB_ROOT: 'dist',
+        SESSION_SECRET: 'e2e-session-secret-that-is-long-enough-0123456789',
+        DATABASE_URL: databaseUrl,
+        // Every browser test signs up from loopback; the sign-up limit (10 an hour) is the API tests' business.
+        SIGNUP_RATE_LIMIT: '1000',
       });
-      const keep = (chunk: Buffer) => {
-        serverLog = (serverLog + chunk.toString()).slice(-20_000);
-      };
-      server.stdout?.on('data', keep);
-      server.stderr?.on('data', keep);
-      await waitForHealth(`${base}/api/health`, 60_000);
-      browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+      await app.waitForHealth(`${base}/api/health`, 60_000);
+      browser = await launchBrowser();
     });
 
     afterAll(async () => {
       await browser?.close();
-      const child = server;
-      if (child && child.exitCode === null) {
-        const exited = new Promise((r) => child.once('exit', r));
-        child.kill('SIGTERM');
-        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-        if (child.exitCode === null) child.kill('SIGKILL');
-      }
+      await app.stop();
     });
 
     const viewports = [

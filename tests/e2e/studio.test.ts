@@ -8,75 +8,20 @@
  * Expected behaviour comes from the studio brief and CONTRACTS.md (PUT seams raises the revision by one; a save
  * queues a pattern of the sculpt); window sizes 390 × 844 and 1280 × 800 as in the app-shell test.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { appProcesses, artifacts, freePort, haveDist, launchBrowser } from './browser-harness';
 import { createOwnDatabase, type OwnDatabase } from './own-database';
 import { createStudioFixture, fetchSeams, replaceSeams, type StudioFixture } from '../../bench/studio-api';
 
-const root = path.resolve(__dirname, '../..');
-const haveDist = existsSync(path.join(root, 'dist', 'index.html'));
-const artifacts = path.join(root, 'tests', 'artifacts');
-
-// Flags measured on this kind of machine (shared/STACK.md).
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--use-angle=swiftshader',
-  '--enable-unsafe-swiftshader',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (addr && typeof addr === 'object' ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
-}
-
-const children: ChildProcess[] = [];
-let log = '';
+const app = appProcesses();
 let ownDatabase: OwnDatabase | null = null;
 let filesDir = '';
 let browser: Browser | null = null;
 let fixture: StudioFixture | null = null;
-
-function start(script: string, env: NodeJS.ProcessEnv): ChildProcess {
-  const child = spawn(process.execPath, ['--import', 'tsx', script], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
-  const keep = (chunk: Buffer) => {
-    log = (log + chunk.toString()).slice(-20_000);
-  };
-  child.stdout?.on('data', keep);
-  child.stderr?.on('data', keep);
-  children.push(child);
-  return child;
-}
-
-async function waitForHealth(url: string, ms: number): Promise<void> {
-  const until = Date.now() + ms;
-  while (Date.now() < until) {
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`${url} did not answer within ${ms} ms. Server output:\n${log.slice(-3000)}`);
-}
 
 async function openStudio(width: number, height: number): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
   const f = fixture!;
@@ -97,7 +42,7 @@ async function waitForMeshFrame(page: Page): Promise<void> {
   } catch (e) {
     await page.screenshot({ path: path.join(artifacts, `studio-failed-${page.viewportSize()?.width ?? 0}.png`) });
     const text = (await page.locator('body').innerText()).slice(0, 1500);
-    throw new Error(`the studio drew no frame with the mesh within 60 s; the page says:\n${text}\nserver:\n${log.slice(-1500)}`, { cause: e });
+    throw new Error(`the studio drew no frame with the mesh within 60 s; the page says:\n${text}\nserver:\n${app.logs(1500)}`, { cause: e });
   }
   // Let the demand-driven canvas settle after its first frame (camera fit, colours).
   await page.waitForTimeout(500);
@@ -122,28 +67,20 @@ describe.skipIf(!haveDist)(haveDist ? 'studio in a browser' : 'studio in a brows
       SIGNUP_RATE_LIMIT: '1000',
       DATABASE_URL: ownDatabase.url,
     };
-    start('server/index.ts', env);
-    start('server/worker.ts', env);
-    await waitForHealth(`http://127.0.0.1:${port}/api/health`, 60_000);
+    app.start('server', 'server/index.ts', env);
+    app.start('worker', 'server/worker.ts', env);
+    await app.waitForHealth(`http://127.0.0.1:${port}/api/health`, 60_000);
     try {
       fixture = await createStudioFixture(`http://127.0.0.1:${port}`, {}, 120_000);
     } catch (e) {
-      throw new Error(`${(e as Error).message}\nserver and worker output:\n${log.slice(-4000)}`, { cause: e });
+      throw new Error(`${(e as Error).message}\nserver and worker output:\n${app.logs(4000)}`, { cause: e });
     }
-    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    browser = await launchBrowser();
   }, 200_000);
 
   afterAll(async () => {
     await browser?.close();
-    await Promise.all(
-      children.map(async (child) => {
-        if (child.exitCode !== null) return;
-        const exited = new Promise((r) => child.once('exit', r));
-        child.kill('SIGTERM');
-        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-        if (child.exitCode === null) child.kill('SIGKILL');
-      }),
-    );
+    await app.stop();
     await ownDatabase?.drop();
     if (filesDir) rmSync(filesDir, { recursive: true, force: true });
   });
