@@ -10,6 +10,7 @@ import type { PrintSetFileEntry } from '../../db/schema';
 import type { JobContext } from '../jobs/job-types';
 import { claimPrintSet, markPrintSetDone, markPrintSetFailed } from './queries';
 import type { PrintFormat } from './print-set-request';
+import { stockForPlanning } from '../stock/service';
 import { renderPrintSet } from './render-print-set';
 import { printSetFileKey, printSetFilePrefix } from './print-set-files';
 
@@ -41,7 +42,8 @@ export async function runPrintSetJob({ db, files }: JobContext, data: unknown): 
 
   let rendered;
   try {
-    rendered = await renderPrintSet(job.pattern, { formats: job.formats as PrintFormat[], page: job.page, mode: job.mode as PrintMode, name: job.name });
+    const { stock } = await stockForPlanning(db, job.shopId);
+    rendered = await renderPrintSet(job.pattern, { formats: job.formats as PrintFormat[], page: job.page, mode: job.mode as PrintMode, name: job.name, stock });
   } catch (err) {
     if (isGeometryError(err)) {
       await markPrintSetFailed(db, id, err.message);

@@ -92,7 +92,7 @@ export async function claimPrintSet(db: DbExecutor, id: string) {
     .update(printSets)
     .set({ status: 'running', startedAt: sql`now()`, error: null })
     .where(and(eq(printSets.id, id), inArray(printSets.status, ['queued', 'running'])))
-    .returning({ id: printSets.id, name: printSets.name, formats: printSets.formats, page: printSets.page, mode: printSets.mode, pattern: printSets.pattern });
+    .returning({ id: printSets.id, shopId: printSets.shopId, name: printSets.name, formats: printSets.formats, page: printSets.page, mode: printSets.mode, pattern: printSets.pattern });
   return rows[0] ?? null;
 }
 

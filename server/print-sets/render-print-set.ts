@@ -11,6 +11,7 @@ import { patternSvg } from '../../geometry/export/pattern-svg';
 import type { PdfFonts } from '../../geometry/export/pdf-canvas';
 import { printSetPdf, type PrintMode } from '../../geometry/export/print-set-pdf';
 import { planSheets } from '../../geometry/layout/plan-sheets';
+import type { StockSheet } from '../../geometry/layout/stock-sheets';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import type { PrintFormat } from './print-set-request';
 
@@ -50,6 +51,8 @@ export interface RenderOptions {
   mode: PrintMode;
   /** Print-set name printed on every page. */
   name: string;
+  /** The shop's stock sheets per thickness (the engine's defaults when absent), so the print set's sheet plan matches the one the maker previewed. */
+  stock?: readonly StockSheet[];
 }
 
 /**
@@ -58,7 +61,7 @@ export interface RenderOptions {
  * message naming the piece or option) when the pattern cannot be laid out or drawn.
  */
 export async function renderPrintSet(doc: PatternDoc, opts: RenderOptions): Promise<RenderedFile[]> {
-  const plan = planSheets(doc);
+  const plan = planSheets(doc, opts.stock ? { stock: opts.stock } : {});
   const text = (s: string) => new TextEncoder().encode(s);
   const files: RenderedFile[] = [{ name: 'sheet-plan.json', contentType: CONTENT_TYPES.json, bytes: text(JSON.stringify(plan, null, 1)) }];
   if (opts.formats.includes('pdf')) {

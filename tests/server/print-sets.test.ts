@@ -186,6 +186,28 @@ describe('print sets', () => {
     expect(file.body.error.message).toBe('The print set has no file "print-set.pdf" (it has no files)');
   });
 
+  it("lays the print set out on the shop's own stock sheets, the same stock its sheet plans use", async () => {
+    // The 2000 mm banner that fits no default sheet (test above) fits the shop's 2500×200 mm 6 mm strip stock.
+    const stock = await request(ctx.app)
+      .put(`/api/shops/${fx.shopId}/stock`)
+      .set('Cookie', fx.people.editor.cookie)
+      .send({ sheets: [{ thicknessMm: 6, name: '6 mm strip', widthMm: 2500, heightMm: 200, price: 4, currency: 'EUR' }] });
+    expect(stock.status).toBe(200);
+    try {
+      const doc: PatternDoc = { units: 'mm', name: 'Banner', pieces: [piece('LONG', rectangle(2000, 100))], seams: [], warnings: [] };
+      const created = await request(ctx.app).post(base()).set('Cookie', fx.people.editor.cookie).send({ pattern: doc, formats: ['svg'] });
+      const done = await waitFinished(created.body.printSet.id, fx.people.editor.cookie);
+      expect(done.status).toBe('done');
+      const planFile = done.files.find((f) => f.name === 'sheet-plan.json')!;
+      const planRes = await request(ctx.app).get(planFile.url).set('Cookie', fx.people.editor.cookie).buffer(true).parse(binary);
+      const plan = JSON.parse((planRes.body as Buffer).toString('utf8')) as { sheets: Array<{ widthMm: number; heightMm: number; pricePerSheet: number }> };
+      expect(plan.sheets).toHaveLength(1);
+      expect(plan.sheets[0]).toMatchObject({ widthMm: 2500, heightMm: 200, pricePerSheet: 4 });
+    } finally {
+      await request(ctx.app).put(`/api/shops/${fx.shopId}/stock`).set('Cookie', fx.people.editor.cookie).send({ sheets: [] });
+    }
+  });
+
   it('lists a build’s print sets newest first and records the creation in the audit trail', async () => {
     const doc: PatternDoc = { units: 'mm', pieces: [piece('S', rectangle(50, 50))], seams: [], warnings: [] };
     const other = await insertBuild(ctx.db, fx.shopId, 'Ember bracers');
