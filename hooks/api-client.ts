@@ -112,3 +112,32 @@ export async function apiRequest<S extends z.ZodType>(
   }
   return checked.data;
 }
+
+/**
+ * GETs the binary file at `url` (same origin, cookie session) and returns `decode` of its bytes. `what` names the
+ * file for the message when the bytes cannot be decoded, e.g. "The sculpt's working mesh". Throws ApiError: status
+ * 0 / code NETWORK when the server cannot be reached, the server's error (API contract shape) for a non-2xx answer,
+ * code BAD_RESPONSE with `decode`'s message when the bytes are not a valid file.
+ */
+export async function fetchBytes<T>(url: string, decode: (bytes: Uint8Array) => T, what: string): Promise<T> {
+  let res: Response;
+  try {
+    res = await fetch(url, { credentials: 'same-origin', headers: { Accept: 'application/octet-stream' } });
+  } catch {
+    throw new ApiError(0, 'NETWORK', 'Cannot reach the Sheetsmith server. Check your connection and try again.');
+  }
+  if (!res.ok) {
+    let body: unknown;
+    try {
+      body = await res.json();
+    } catch {
+      body = undefined;
+    }
+    throw apiErrorFromResponse(res.status, body);
+  }
+  try {
+    return decode(new Uint8Array(await res.arrayBuffer()));
+  } catch (e) {
+    throw new ApiError(res.status, 'BAD_RESPONSE', `${what} could not be read: ${(e as Error).message}`);
+  }
+}

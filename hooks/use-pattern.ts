@@ -5,7 +5,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import type { PatternDoc } from '../geometry/pattern/pattern-doc';
-import { ApiError, apiErrorFromResponse, apiRequest } from './api-client';
+import { ApiError, apiRequest, fetchBytes } from './api-client';
 
 const id = z.union([z.string().min(1), z.number().int()]).transform(String);
 const timestamp = z.string().refine((s) => !Number.isNaN(Date.parse(s)), 'expected an ISO 8601 date-time');
@@ -130,28 +130,7 @@ export function usePatternFaces(url: string | null) {
     queryKey: ['pattern-faces', url ?? ''],
     enabled: url !== null,
     staleTime: Infinity,
-    queryFn: async (): Promise<PatternFaces> => {
-      let res: Response;
-      try {
-        res = await fetch(url!, { credentials: 'same-origin', headers: { Accept: 'application/octet-stream' } });
-      } catch {
-        throw new ApiError(0, 'NETWORK', 'Cannot reach the Sheetsmith server. Check your connection and try again.');
-      }
-      if (!res.ok) {
-        let body: unknown;
-        try {
-          body = await res.json();
-        } catch {
-          body = undefined;
-        }
-        throw apiErrorFromResponse(res.status, body);
-      }
-      try {
-        return decodePatternFaces(new Uint8Array(await res.arrayBuffer()));
-      } catch (e) {
-        throw new ApiError(res.status, 'BAD_RESPONSE', `The pattern's faces file could not be read: ${(e as Error).message}`);
-      }
-    },
+    queryFn: (): Promise<PatternFaces> => fetchBytes(url!, decodePatternFaces, "The pattern's faces file"),
   });
 }
 
