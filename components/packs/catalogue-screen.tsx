@@ -7,6 +7,7 @@ import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
 import { PageTitle } from '../ui/page-title';
 import { Screen } from '../ui/screen';
+import { PublicHeader } from './public-header';
 import { Text } from '../ui/text';
 import { contentMaxWidth, space } from '../ui/theme';
 import { PackCard } from './pack-card';
@@ -23,6 +24,7 @@ export function CatalogueScreen() {
   const pages = data ? Math.max(1, Math.ceil(data.total / data.perPage)) : 1;
   return (
     <Screen>
+      <PublicHeader />
       <PageTitle title="Pattern packs" />
       <Text variant="display" heading={1}>
         Pattern packs

@@ -9,6 +9,7 @@ import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
 import { PageTitle } from '../ui/page-title';
 import { Screen } from '../ui/screen';
+import { PublicHeader } from './public-header';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
 
@@ -25,10 +26,18 @@ function openFile(url: string): void {
 /** Renders download link `token`, or the server's reason when it is unknown, expired, used up or revoked. */
 export function DownloadScreen({ token }: { token: string }) {
   const download = useDownload(token);
-  if (download.isPending) return <Screen><Loading label="Opening your download" /></Screen>;
+  if (download.isPending) {
+    return (
+      <Screen>
+        <PublicHeader />
+        <Loading label="Opening your download" />
+      </Screen>
+    );
+  }
   if (download.error || !download.data) {
     return (
       <Screen>
+        <PublicHeader />
         <PageTitle title="Download" />
         <Text variant="display" heading={1}>
           Download
@@ -41,6 +50,7 @@ export function DownloadScreen({ token }: { token: string }) {
   const left = d.maxUses - d.uses;
   return (
     <Screen>
+      <PublicHeader />
       <PageTitle title={d.packTitle} />
       <Text variant="display" heading={1}>
         {d.packTitle}

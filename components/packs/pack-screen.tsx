@@ -11,6 +11,7 @@ import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
 import { PageTitle } from '../ui/page-title';
 import { Screen } from '../ui/screen';
+import { PublicHeader } from './public-header';
 import { Text } from '../ui/text';
 import { palette, radius, space } from '../ui/theme';
 import { BuyPackForm } from './buy-pack-form';
@@ -22,10 +23,18 @@ function sizeLabel(bytes: number): string {
 /** Renders pack `slug`; `returned` says how the buyer came back from the payment page, if they did. */
 export function PackScreen({ slug, returned }: { slug: string; returned: 'paid' | 'cancelled' | null }) {
   const pack = usePublicPack(slug);
-  if (pack.isPending) return <Screen><Loading label="Loading the pack" /></Screen>;
+  if (pack.isPending) {
+    return (
+      <Screen>
+        <PublicHeader />
+        <Loading label="Loading the pack" />
+      </Screen>
+    );
+  }
   if (pack.error || !pack.data) {
     return (
       <Screen>
+        <PublicHeader />
         <PageTitle title="Pattern pack" />
         <Text variant="display" heading={1}>
           Pattern pack
@@ -38,6 +47,7 @@ export function PackScreen({ slug, returned }: { slug: string; returned: 'paid' 
   const p = pack.data;
   return (
     <Screen>
+      <PublicHeader />
       <Link href="/packs" style={styles.link} accessibilityLabel="All pattern packs">
         ← All pattern packs
       </Link>
