@@ -6,20 +6,14 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from './api-client';
+import { orderSchema } from './use-packs';
 
 const pageFields = { page: z.number(), pageSize: z.number(), total: z.number() };
 
 const adminUser = z.object({ id: z.string(), email: z.string(), name: z.string(), isAdmin: z.boolean(), createdAt: z.string(), shopCount: z.number() });
 const adminShop = z.object({ id: z.string(), name: z.string(), createdAt: z.string(), memberCount: z.number(), buildCount: z.number(), ownerEmails: z.array(z.string()) });
-const adminOrder = z.object({
-  id: z.string(),
-  email: z.string(),
-  amountCents: z.number(),
-  currency: z.string(),
-  status: z.enum(['pending', 'paid', 'refunded']),
-  createdAt: z.string(),
-  paidAt: z.string().nullable(),
-  refundedAt: z.string().nullable(),
+// The same order row as the owner's order list (use-packs.ts), with its pack and shop instead of the pack's title.
+const adminOrder = orderSchema.omit({ packTitle: true, packSlug: true }).extend({
   pack: z.object({ id: z.string(), title: z.string(), slug: z.string() }),
   shop: z.object({ id: z.string(), name: z.string() }),
 });
