@@ -5,8 +5,7 @@
  * partial one.
  */
 import { randomUUID } from 'node:crypto';
-import { createReadStream } from 'node:fs';
-import { mkdir, rename, rm, stat, writeFile } from 'node:fs/promises';
+import { mkdir, open, rename, rm, stat, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { fileKeySegments, type FileStore, type StoredFile } from './file-store';
 
@@ -29,12 +28,25 @@ export function localDiskStore(rootDir: string): FileStore {
     },
     async open(key): Promise<StoredFile | null> {
       const target = pathOf(key);
+      // Size and bytes come from one open file: a path looked up twice could meet the old file, then the new one
+      // a writer renamed into place in between.
+      let handle;
       try {
-        const info = await stat(target);
-        if (!info.isFile()) return null;
-        return { stream: createReadStream(target), sizeBytes: info.size };
+        handle = await open(target, 'r');
       } catch (err) {
-        if ((err as NodeJS.ErrnoException).code === 'ENOENT') return null;
+        const code = (err as NodeJS.ErrnoException).code;
+        if (code === 'ENOENT' || code === 'EISDIR') return null;
+        throw err;
+      }
+      try {
+        const info = await handle.stat();
+        if (!info.isFile()) {
+          await handle.close();
+          return null;
+        }
+        return { stream: handle.createReadStream(), sizeBytes: info.size };
+      } catch (err) {
+        await handle.close();
         throw err;
       }
     },
