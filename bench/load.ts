@@ -142,7 +142,16 @@ async function main(): Promise<void> {
   await db.insert(downloadLinks).values({ orderId: order.id, tokenHash: hash, expiresAt: new Date(Date.now() + 86_400_000), maxUses: RATE * DURATION_S * 2 });
 
   const app = createApp({
-    env: parseEnv({ NODE_ENV: 'production', SESSION_SECRET: 'load-bench-session-secret-0123456789abcdef', DATABASE_URL, WEB_ROOT: '/nonexistent-web-root', LOG_LEVEL: 'silent' }),
+    env: parseEnv({
+      NODE_ENV: 'production',
+      SESSION_SECRET: 'load-bench-session-secret-0123456789abcdef',
+      // Production refuses the local payment defaults; the bench never pays, so any non-default values do.
+      PAY_API_KEY: 'load-bench-pay-key',
+      PAY_WEBHOOK_SECRET: 'load-bench-webhook-secret-0123',
+      DATABASE_URL,
+      WEB_ROOT: '/nonexistent-web-root',
+      LOG_LEVEL: 'silent',
+    }),
     pool,
     db,
     sessionSecret: 'load-bench-session-secret-0123456789abcdef',
