@@ -12,6 +12,7 @@ import { FoamMark } from '../ui/foam-mark';
 import { Text } from '../ui/text';
 import { fonts, minTouchTarget, palette, radius, space } from '../ui/theme';
 import { RoleBadge } from './role-badge';
+import { BrandLink } from './brand-link';
 import { ShopSwitcher } from './shop-switcher';
 import { SignOutButton } from './sign-out-button';
 
@@ -90,14 +91,7 @@ function TopBar({ user }: { user: User }) {
   return (
     <View role="navigation" accessibilityLabel="Main" style={styles.top}>
       <View style={styles.topRow}>
-        <Link href="/builds" accessibilityLabel="Sheetsmith: builds" style={styles.topBrandLink}>
-          <View style={styles.topBrand}>
-            <FoamMark size={24} />
-            <Text variant="heading" style={[styles.onBench, styles.topName]}>
-              Sheetsmith
-            </Text>
-          </View>
-        </Link>
+        <BrandLink href="/builds" accessibilityLabel="Sheetsmith: builds" dark />
         <View style={styles.topUser}>
           <Text variant="small" numberOfLines={1} style={[styles.onBenchSoft, styles.topUserName]}>
             {user.name}
@@ -150,9 +144,6 @@ const styles = StyleSheet.create({
   sideFoot: { marginTop: 'auto', gap: space.xs, borderTopWidth: 1, borderTopColor: palette.benchLine, paddingTop: space.lg },
   top: { backgroundColor: palette.bench, paddingHorizontal: space.lg, paddingTop: space.md, paddingBottom: space.md, gap: space.md },
   topRow: { flexDirection: 'row', alignItems: 'center', gap: space.md },
-  topBrandLink: { flexShrink: 0 },
-  topBrand: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  topName: { fontFamily: fonts.display },
   topUser: { flex: 1, minWidth: 0, alignItems: 'flex-end' },
   topUserName: { maxWidth: '100%' },
   topLinks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },

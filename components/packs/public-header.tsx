@@ -5,8 +5,7 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useMe } from '../../hooks/use-me';
-import { FoamMark } from '../ui/foam-mark';
-import { Text } from '../ui/text';
+import { BrandLink } from '../nav/brand-link';
 import { fonts, minTouchTarget, palette, space } from '../ui/theme';
 
 export function PublicHeader() {
@@ -14,14 +13,7 @@ export function PublicHeader() {
   const signedIn = !!me.data;
   return (
     <View role="navigation" accessibilityLabel="Sheetsmith" style={styles.bar}>
-      <Link href="/packs" accessibilityLabel="Sheetsmith pattern packs" style={styles.brandLink}>
-        <View style={styles.brand}>
-          <FoamMark size={22} />
-          <Text variant="bodyStrong" style={styles.brandText}>
-            Sheetsmith
-          </Text>
-        </View>
-      </Link>
+      <BrandLink href="/packs" accessibilityLabel="Sheetsmith pattern packs" size={22} />
       <Link href={signedIn ? '/builds' : '/sign-in'} style={styles.link}>
         {signedIn ? 'Your builds' : 'Sign in'}
       </Link>
@@ -40,8 +32,5 @@ const styles = StyleSheet.create({
     borderBottomWidth: 1,
     borderBottomColor: palette.rule,
   },
-  brandLink: { flexShrink: 0 },
-  brand: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
-  brandText: { fontFamily: fonts.display },
   link: { minHeight: minTouchTarget, lineHeight: minTouchTarget, paddingHorizontal: space.sm, fontFamily: fonts.bodyStrong, color: palette.ink },
 });
