@@ -12,13 +12,17 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: FieldMessages;
+  /** The parsed body of the failed answer (undefined when there was none or it was not JSON), for routes whose
+   * error carries more than a message, such as the current seam set beside a 409. */
+  readonly body: unknown;
 
-  constructor(status: number, code: string, message: string, fields: FieldMessages = {}) {
+  constructor(status: number, code: string, message: string, fields: FieldMessages = {}, body?: unknown) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fields = fields;
+    this.body = body;
   }
 }
 
@@ -55,16 +59,18 @@ export function apiErrorFromResponse(status: number, body: unknown): ApiError {
     const codeText = typeof code === 'string' && code ? code : `HTTP_${status}`;
     const messageText =
       typeof message === 'string' && message ? message : (fallbackMessages[status] ?? `The server answered ${status}.`);
-    return new ApiError(status, codeText, messageText, flattenFields(fields));
+    return new ApiError(status, codeText, messageText, flattenFields(fields), body);
   }
   return new ApiError(
     status,
     `HTTP_${status}`,
     fallbackMessages[status] ?? `The server answered ${status} without an explanation. Try again in a moment.`,
+    {},
+    body,
   );
 }
 
-export type HttpMethod = 'GET' | 'POST' | 'PATCH' | 'DELETE';
+export type HttpMethod = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 /**
  * Calls `method path` on the API (path starts with `/api/`), sending `body` as JSON when given, and returns the

@@ -6,7 +6,7 @@ import { useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import type { SeamPutResult } from '../components/studio/seam-saver';
 import type { SeamSetDraft } from '../components/studio/seam-set-edits';
-import { ApiError, apiErrorFromResponse, apiRequest } from './api-client';
+import { ApiError, apiRequest } from './api-client';
 import { sculptsPath } from './use-sculpts';
 
 const vertexList = z.array(z.number().int().min(0));
@@ -56,29 +56,15 @@ export function useSeams(shopId: string, buildId: string, sculptId: string | nul
  * message says what is wrong) for any other failure.
  */
 export async function putSeams(path: string, baseRevision: number, draft: SeamSetDraft): Promise<SeamPutResult<SeamSetView>> {
-  let res: Response;
+  const body = { baseRevision, seams: draft.seams, symmetry: draft.symmetry, stretchBudgetPct: draft.stretchBudgetPct };
   try {
-    res = await fetch(path, {
-      method: 'PUT',
-      credentials: 'same-origin',
-      headers: { Accept: 'application/json', 'Content-Type': 'application/json' },
-      body: JSON.stringify({ baseRevision, seams: draft.seams, symmetry: draft.symmetry, stretchBudgetPct: draft.stretchBudgetPct }),
-    });
-  } catch {
-    throw new ApiError(0, 'NETWORK', 'cannot reach the Sheetsmith server');
+    const saved = await apiRequest('PUT', path, envelope, body);
+    return { ok: true, revision: saved.seams.revision, view: saved.seams };
+  } catch (err) {
+    if (err instanceof ApiError && err.status === 409) {
+      const conflict = conflictEnvelope.safeParse(err.body);
+      if (conflict.success) return { ok: false, current: conflict.data.current, revision: conflict.data.current.revision };
+    }
+    throw err;
   }
-  let body: unknown;
-  try {
-    body = await res.json();
-  } catch {
-    body = undefined;
-  }
-  if (res.status === 409) {
-    const conflict = conflictEnvelope.safeParse(body);
-    if (conflict.success) return { ok: false, current: conflict.data.current, revision: conflict.data.current.revision };
-  }
-  if (!res.ok) throw apiErrorFromResponse(res.status, body);
-  const saved = envelope.safeParse(body);
-  if (!saved.success) throw new ApiError(res.status, 'BAD_RESPONSE', 'the server answered the save with something other than a seam set');
-  return { ok: true, revision: saved.data.seams.revision, view: saved.data.seams };
 }

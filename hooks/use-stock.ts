@@ -4,7 +4,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import type { StockReplaceBody } from '../db/validation-bench';
-import { ApiError, apiErrorFromResponse, apiRequest } from './api-client';
+import { apiRequest } from './api-client';
 
 export const stockSheetSchema = z.object({
   thicknessMm: z.number(),
@@ -29,36 +29,11 @@ export function useStock(shopId: string) {
   });
 }
 
-/**
- * PUT /api/shops/:shopId/stock with the whole list (it replaces the shop's list). The app's request helper has
- * no PUT, so this one call is made here with the same error handling (ApiError from the server's error shape).
- */
+/** PUT /api/shops/:shopId/stock with the whole list (it replaces the shop's list); resolves to the saved list. */
 export function useSaveStock(shopId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: async (body: StockReplaceBody) => {
-      let res: Response;
-      try {
-        res = await fetch(stockPath(shopId), {
-          method: 'PUT',
-          credentials: 'same-origin',
-          headers: { Accept: 'application/json', 'Content-Type': 'application/json' },
-          body: JSON.stringify(body),
-        });
-      } catch {
-        throw new ApiError(0, 'NETWORK', 'Cannot reach the Sheetsmith server. Check your connection and try again.');
-      }
-      let parsed: unknown;
-      try {
-        parsed = await res.json();
-      } catch {
-        parsed = undefined;
-      }
-      if (!res.ok) throw apiErrorFromResponse(res.status, parsed);
-      const checked = stockListSchema.safeParse(parsed);
-      if (!checked.success) throw new ApiError(res.status, 'BAD_RESPONSE', "The server's answer to saving the stock was not understood.");
-      return checked.data.stock;
-    },
+    mutationFn: async (body: StockReplaceBody) => (await apiRequest('PUT', stockPath(shopId), stockListSchema, body)).stock,
     onSuccess: (stock) => qc.setQueryData(stockQueryKey(shopId), [...stock].sort((a, b) => a.thicknessMm - b.thicknessMm)),
   });
 }
