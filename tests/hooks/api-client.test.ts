@@ -101,7 +101,7 @@ describe('PUT through apiRequest', () => {
     const current = { revision: 4, note: 'the other editor’s seams' };
     const fetchMock = respondWith(409, JSON.stringify({ error: { code: 'SEAMS_CHANGED', message: 'Someone else changed the seams.' }, current }));
     const err = await apiRequest('PUT', '/api/x', null, { baseRevision: 3 }).catch((e: unknown) => e);
-    expect(fetchMock.mock.calls[0][1]).toMatchObject({ method: 'PUT', body: JSON.stringify({ baseRevision: 3 }) });
+    expect((fetchMock.mock.calls[0] as unknown[])[1]).toMatchObject({ method: 'PUT', body: JSON.stringify({ baseRevision: 3 }) });
     expect(err).toBeInstanceOf(ApiError);
     expect([(err as ApiError).status, (err as ApiError).code]).toEqual([409, 'SEAMS_CHANGED']);
     expect((err as ApiError).body).toEqual({ error: { code: 'SEAMS_CHANGED', message: 'Someone else changed the seams.' }, current });
