@@ -10,7 +10,7 @@ import { signUpBody } from '../../db/validation';
 import { applyServerErrors } from '../../hooks/form-errors';
 import { useSignUp } from '../../hooks/use-auth';
 import { Button } from '../ui/button';
-import { FormTextField } from '../ui/form-text-field';
+import { EMAIL_ENTRY, FormTextField } from '../ui/form-text-field';
 import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
@@ -40,12 +40,7 @@ export function SignUpScreen() {
         control={control}
         name="email"
         label="E-mail"
-        autoComplete="email"
-        keyboardType="email-address"
-        autoCapitalize="none"
-        inputMode="email"
-        autoCorrect={false}
-        spellCheck={false}
+        {...EMAIL_ENTRY}
         onSubmitEditing={submit}
       />
       <FormTextField

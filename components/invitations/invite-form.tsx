@@ -11,7 +11,7 @@ import { applyServerErrors } from '../../hooks/form-errors';
 import { useCreateInvitation } from '../../hooks/use-invitations';
 import { RoleChoice } from '../members/role-choice';
 import { Button } from '../ui/button';
-import { FormTextField } from '../ui/form-text-field';
+import { EMAIL_ENTRY, FormTextField } from '../ui/form-text-field';
 import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 import { space } from '../ui/theme';
@@ -46,7 +46,7 @@ export function InviteForm({ shopId }: { shopId: string }) {
       <Text variant="heading" heading={3}>
         Invite someone
       </Text>
-      <FormTextField control={control} name="email" label="E-mail to invite" autoComplete="off" keyboardType="email-address" autoCapitalize="none" inputMode="email" autoCorrect={false} spellCheck={false} onSubmitEditing={submit} />
+      <FormTextField control={control} name="email" label="E-mail to invite" {...EMAIL_ENTRY} autoComplete="off" onSubmitEditing={submit} />
       <Text variant="label">As</Text>
       <Controller
         control={control}

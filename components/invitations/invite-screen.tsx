@@ -17,7 +17,7 @@ import { useAcceptInvitation, useInvitationPreview, type InvitationPreview } fro
 import { useMe } from '../../hooks/use-me';
 import { AuthFrame } from '../auth/auth-frame';
 import { Button } from '../ui/button';
-import { FormTextField } from '../ui/form-text-field';
+import { EMAIL_ENTRY, FormTextField } from '../ui/form-text-field';
 import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
@@ -134,7 +134,7 @@ function InviteSignIn({ email, onDone, busyAccepting }: { email: string; onDone:
   return (
     <>
       <Text variant="bodyStrong" style={styles.formTitle}>Sign in to accept</Text>
-      <FormTextField control={control} name="email" label="E-mail" autoComplete="email" keyboardType="email-address" autoCapitalize="none" inputMode="email" autoCorrect={false} spellCheck={false} onSubmitEditing={submit} />
+      <FormTextField control={control} name="email" label="E-mail" {...EMAIL_ENTRY} onSubmitEditing={submit} />
       <FormTextField control={control} name="password" label="Password" autoComplete="current-password" secureTextEntry onSubmitEditing={submit} />
       {formError ? <Notice tone="error">{formError}</Notice> : null}
       <Button label="Sign in and accept" onPress={submit} busy={signIn.isPending || busyAccepting} />
@@ -154,7 +154,7 @@ function InviteSignUp({ email, onDone, busyAccepting }: { email: string; onDone:
     <>
       <Text variant="bodyStrong" style={styles.formTitle}>Create your account to accept</Text>
       <FormTextField control={control} name="name" label="Your name" autoComplete="name" onSubmitEditing={submit} />
-      <FormTextField control={control} name="email" label="E-mail" autoComplete="email" keyboardType="email-address" autoCapitalize="none" inputMode="email" autoCorrect={false} spellCheck={false} onSubmitEditing={submit} />
+      <FormTextField control={control} name="email" label="E-mail" {...EMAIL_ENTRY} onSubmitEditing={submit} />
       <FormTextField control={control} name="password" label="Password" hint="At least 10 characters." autoComplete="new-password" secureTextEntry onSubmitEditing={submit} />
       {formError ? <Notice tone="error">{formError}</Notice> : null}
       <Button label="Create account and accept" onPress={submit} busy={signUp.isPending || busyAccepting} />

@@ -7,7 +7,7 @@ import { checkoutBody } from '../../db/validation-packs';
 import { applyServerErrors } from '../../hooks/form-errors';
 import { useCheckout, type PackPublic } from '../../hooks/use-packs';
 import { Button } from '../ui/button';
-import { FormTextField } from '../ui/form-text-field';
+import { EMAIL_ENTRY, FormTextField } from '../ui/form-text-field';
 import { Notice } from '../ui/notice';
 
 /** Renders the form for `pack`; after a free take it says where the link went. */
@@ -43,11 +43,7 @@ export function BuyPackForm({ pack }: { pack: PackPublic }) {
         control={control}
         name="email"
         label="Your e-mail (the download link is sent here)"
-        autoComplete="email"
-        keyboardType="email-address"
-        inputMode="email"
-        autoCapitalize="none"
-        autoCorrect={false}
+        {...EMAIL_ENTRY}
         onSubmitEditing={submit}
       />
       {formError ? <Notice tone="error">{formError}</Notice> : null}

@@ -12,7 +12,7 @@ import { applyServerErrors } from '../../hooks/form-errors';
 import { useRequestPasswordReset } from '../../hooks/use-password-reset';
 import { AuthFrame } from '../auth/auth-frame';
 import { Button } from '../ui/button';
-import { FormTextField } from '../ui/form-text-field';
+import { EMAIL_ENTRY, FormTextField } from '../ui/form-text-field';
 import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
@@ -40,12 +40,7 @@ export function ForgotPasswordScreen() {
             control={control}
             name="email"
             label="E-mail"
-            autoComplete="email"
-            keyboardType="email-address"
-            autoCapitalize="none"
-            inputMode="email"
-            autoCorrect={false}
-            spellCheck={false}
+            {...EMAIL_ENTRY}
             onSubmitEditing={submit}
           />
           {formError ? <Notice tone="error">{formError}</Notice> : null}

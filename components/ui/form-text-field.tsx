@@ -30,3 +30,16 @@ export function FormTextField<T extends FieldValues>({
     />
   );
 }
+
+/**
+ * Input settings for an e-mail address, spread into a (Form)TextField: the e-mail keyboard, no capitals,
+ * corrections or spell check, filled in by the browser as an e-mail.
+ */
+export const EMAIL_ENTRY = {
+  autoComplete: 'email',
+  keyboardType: 'email-address',
+  autoCapitalize: 'none',
+  inputMode: 'email',
+  autoCorrect: false,
+  spellCheck: false,
+} as const;
