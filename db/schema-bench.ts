@@ -3,7 +3,7 @@
  * the shop's stock sheets per thickness, and sheet plans (nesting results). Re-exported by db/schema.ts.
  */
 import { boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { builds, shops, users } from './schema-core';
+import { buildIdColumn, shopIdColumn, users } from './schema-core';
 import { patterns, workStatus } from './schema-sculpts';
 
 /** Which surface of the sheet a piece's pattern follows (DESIGN.md step 6). */
@@ -18,13 +18,9 @@ export type PatternSurface = (typeof PATTERN_SURFACES)[number];
 export const buildPieces = pgTable(
   'build_pieces',
   {
-    buildId: uuid('build_id')
-      .notNull()
-      .references(() => builds.id, { onDelete: 'cascade' }),
+    buildId: buildIdColumn(),
     label: text('label').notNull(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
     thicknessMm: doublePrecision('thickness_mm'),
     surface: text('surface').$type<PatternSurface>(),
     quantity: integer('quantity'),
@@ -43,12 +39,8 @@ export const pieceNotes = pgTable(
   'piece_notes',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    buildId: uuid('build_id')
-      .notNull()
-      .references(() => builds.id, { onDelete: 'cascade' }),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
+    buildId: buildIdColumn(),
+    shopId: shopIdColumn(),
     label: text('label').notNull(),
     body: text('body').notNull(),
     authorId: uuid('author_id').references(() => users.id, { onDelete: 'set null' }),
@@ -62,9 +54,7 @@ export const stockSheets = pgTable(
   'stock_sheets',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
     thicknessMm: doublePrecision('thickness_mm').notNull(),
     name: text('name').notNull(),
     widthMm: doublePrecision('width_mm').notNull(),
@@ -81,12 +71,8 @@ export const sheetPlans = pgTable(
   'sheet_plans',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
-    buildId: uuid('build_id')
-      .notNull()
-      .references(() => builds.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
+    buildId: buildIdColumn(),
     patternId: uuid('pattern_id')
       .notNull()
       .references(() => patterns.id, { onDelete: 'cascade' }),

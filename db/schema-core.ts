@@ -23,6 +23,23 @@ import { ROLES } from './validation';
 /** Role of a person inside one shop: owner (runs it), editor (crew at the bench), viewer (commission client). */
 export const shopRole = pgEnum('shop_role', ROLES);
 
+/**
+ * The `shop_id` column of a row the shop owns, deleted with the shop. Shop-owned rows carry it even when a
+ * parent row would say the same, so every query can check the shop straight from the row.
+ */
+export function shopIdColumn() {
+  return uuid('shop_id')
+    .notNull()
+    .references(() => shops.id, { onDelete: 'cascade' });
+}
+
+/** The `build_id` column of a row belonging to a build, deleted with the build. */
+export function buildIdColumn() {
+  return uuid('build_id')
+    .notNull()
+    .references(() => builds.id, { onDelete: 'cascade' });
+}
+
 export const users = pgTable(
   'users',
   {
@@ -52,9 +69,7 @@ export const memberships = pgTable(
     userId: uuid('user_id')
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
     role: shopRole('role').notNull(),
     // A commission client (viewer) sees print sets only when the owner grants it.
     canSeePrintSets: boolean('can_see_print_sets').notNull().default(false),
@@ -68,9 +83,7 @@ export const builds = pgTable(
   'builds',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
     name: text('name').notNull(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
@@ -125,12 +138,8 @@ export const printSets = pgTable(
   'print_sets',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
-    buildId: uuid('build_id')
-      .notNull()
-      .references(() => builds.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
+    buildId: buildIdColumn(),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     name: text('name').notNull(),
     status: printSetStatus('status').notNull().default('queued'),

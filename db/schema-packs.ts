@@ -4,7 +4,7 @@
  * webhook fulfils once). Link tokens are stored only as SHA-256 hashes. Re-exported by db/schema.ts.
  */
 import { index, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { printSets, shops, users } from './schema-core';
+import { printSets, shopIdColumn, users } from './schema-core';
 
 export const packStatus = pgEnum('pack_status', ['draft', 'published', 'withdrawn']);
 export const orderStatus = pgEnum('order_status', ['pending', 'paid', 'refunded']);
@@ -13,9 +13,7 @@ export const packs = pgTable(
   'packs',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
     printSetId: uuid('print_set_id')
       .notNull()
       .references(() => printSets.id, { onDelete: 'restrict' }),

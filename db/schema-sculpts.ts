@@ -5,7 +5,7 @@
  */
 import { doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import type { PatternDoc } from '../geometry/pattern/pattern-doc';
-import { builds, shops, users } from './schema-core';
+import { buildIdColumn, shopIdColumn, users } from './schema-core';
 
 /** Where a piece of background work is: waiting for a worker, being done, finished, or failed (with a message). */
 export const workStatus = pgEnum('work_status', ['queued', 'running', 'done', 'failed']);
@@ -44,12 +44,8 @@ export const sculpts = pgTable(
   'sculpts',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
-    buildId: uuid('build_id')
-      .notNull()
-      .references(() => builds.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
+    buildId: buildIdColumn(),
     version: integer('version').notNull(),
     fileName: text('file_name').notNull(),
     format: text('format').notNull(),
@@ -101,9 +97,7 @@ export const seamSets = pgTable('seam_sets', {
   sculptId: uuid('sculpt_id')
     .primaryKey()
     .references(() => sculpts.id, { onDelete: 'cascade' }),
-  shopId: uuid('shop_id')
-    .notNull()
-    .references(() => shops.id, { onDelete: 'cascade' }),
+  shopId: shopIdColumn(),
   revision: integer('revision').notNull().default(0),
   seams: jsonb('seams').$type<SeamLine[]>().notNull().default([]),
   symmetry: jsonb('symmetry').$type<SymmetryPlane | null>(),
@@ -121,12 +115,8 @@ export const patterns = pgTable(
   'patterns',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
-    buildId: uuid('build_id')
-      .notNull()
-      .references(() => builds.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
+    buildId: buildIdColumn(),
     sculptId: uuid('sculpt_id')
       .notNull()
       .references(() => sculpts.id, { onDelete: 'cascade' }),

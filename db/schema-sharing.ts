@@ -5,15 +5,13 @@
  * Re-exported by db/schema.ts.
  */
 import { index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { shopRole, shops, users } from './schema-core';
+import { shopIdColumn, shopRole, users } from './schema-core';
 
 export const invitations = pgTable(
   'invitations',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    shopId: uuid('shop_id')
-      .notNull()
-      .references(() => shops.id, { onDelete: 'cascade' }),
+    shopId: shopIdColumn(),
     email: text('email').notNull(),
     role: shopRole('role').notNull(),
     tokenHash: text('token_hash').notNull().unique(),
