@@ -7,6 +7,7 @@ import PDFDocument from 'pdfkit';
 import type { PointMm } from '../pattern/pattern-doc';
 import type { DrawLine, DrawStyle, DrawText } from './piece-drawing';
 import { GeometryError } from '../errors';
+import { MARK_COLOURS, MARK_DASHES, MARK_TEXT_COLOURS } from './mark-colours';
 
 /** Points per millimetre: 72 pt per inch (ISO 32000-1 §8.3.2.3), 25.4 mm per inch. */
 export const PT_PER_MM = 72 / 25.4;
@@ -17,28 +18,17 @@ export interface PdfFonts {
   mono: Uint8Array;
 }
 
-export const STYLE_PEN: Readonly<Record<DrawStyle | 'square' | 'align' | 'grid', { color: string; widthPt: number; dash?: number[] }>> = {
-  cut: { color: '#1b1b1b', widthPt: 0.9 },
-  match: { color: '#00756f', widthPt: 0.8 },
-  bevel: { color: '#b4501b', widthPt: 0.6 },
-  station: { color: '#b4501b', widthPt: 1 },
-  score: { color: '#6b3fa0', widthPt: 0.8, dash: [9, 3, 1.5, 3] },
-  dart: { color: '#9a2e4e', widthPt: 0.8, dash: [4, 2.5] },
-  texture: { color: '#4d5a2a', widthPt: 0.7 },
+export const STYLE_PEN: Readonly<Record<DrawStyle | 'square' | 'align' | 'grid', { color: string; widthPt: number; dash?: readonly number[] }>> = {
+  cut: { color: MARK_COLOURS.cut, widthPt: 0.9 },
+  match: { color: MARK_COLOURS.match, widthPt: 0.8 },
+  bevel: { color: MARK_COLOURS.bevel, widthPt: 0.6 },
+  station: { color: MARK_COLOURS.station, widthPt: 1 },
+  score: { color: MARK_COLOURS.score, widthPt: 0.8, dash: MARK_DASHES.score },
+  dart: { color: MARK_COLOURS.dart, widthPt: 0.8, dash: MARK_DASHES.dart },
+  texture: { color: MARK_COLOURS.texture, widthPt: 0.7 },
   square: { color: '#1f4e9a', widthPt: 0.7 },
   align: { color: '#444444', widthPt: 0.6 },
   grid: { color: '#9a9a9a', widthPt: 0.4, dash: [3, 2] },
-};
-
-const TEXT_COLOR: Readonly<Record<DrawText['style'], string>> = {
-  label: '#1b1b1b',
-  info: '#1b1b1b',
-  match: '#00756f',
-  bevel: '#b4501b',
-  station: '#b4501b',
-  score: '#6b3fa0',
-  dart: '#9a2e4e',
-  texture: '#4d5a2a',
 };
 
 export class PdfCanvas {
@@ -65,7 +55,7 @@ export class PdfCanvas {
     this.pdf.addPage({ size: [widthMm * PT_PER_MM, heightMm * PT_PER_MM], margin: 0 });
   }
 
-  polyline(points: readonly PointMm[], pen: { color: string; widthPt: number; dash?: number[] }, closed = false, filled = false): void {
+  polyline(points: readonly PointMm[], pen: { color: string; widthPt: number; dash?: readonly number[] }, closed = false, filled = false): void {
     if (points.length < 2) return;
     const p = this.pdf;
     p.save();
@@ -108,7 +98,7 @@ export class PdfCanvas {
   }
 
   drawText(t: DrawText, toPage: (p: PointMm) => PointMm): void {
-    this.text(t.text, toPage(t.at), t.sizeMm, t.weight, TEXT_COLOR[t.style], t.angleDeg);
+    this.text(t.text, toPage(t.at), t.sizeMm, t.weight, MARK_TEXT_COLOURS[t.style], t.angleDeg);
   }
 
   clipRect(leftMm: number, topMm: number, wMm: number, hMm: number): void {
