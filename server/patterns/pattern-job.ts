@@ -13,6 +13,7 @@ import { encodePatternFaces } from '../../geometry/pattern/pattern-faces-file';
 import { patternWithPieceSettings } from '../../geometry/pattern/piece-settings';
 import { preparePieces } from '../../geometry/pattern/prepare-pieces';
 import type { JobContext } from '../jobs/job-types';
+import { selectSeamSet } from '../sculpts/queries';
 import type { PatternSettings } from './pattern-settings';
 import {
   claimPattern,
@@ -20,7 +21,6 @@ import {
   markPatternDone,
   markPatternFailed,
   selectSculptForPattern,
-  selectSeamSet,
   setPatternProgress,
 } from './queries';
 import { readStoredBytes } from './read-stored-bytes';

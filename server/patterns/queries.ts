@@ -5,7 +5,7 @@
 import { and, desc, eq, gt, inArray, ne, sql } from 'drizzle-orm';
 import type { DbExecutor } from '../../db/client';
 import { buildPieces } from '../../db/schema-bench';
-import { patterns, sculpts, seamSets, type SeamLine } from '../../db/schema-sculpts';
+import { patterns, sculpts } from '../../db/schema-sculpts';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
 import type { PatternSettings } from './pattern-settings';
 
@@ -60,15 +60,6 @@ export async function selectNewestSculpt(db: DbExecutor, shopId: string, buildId
     .where(and(eq(sculpts.shopId, shopId), eq(sculpts.buildId, buildId)))
     .orderBy(desc(sculpts.version))
     .limit(1);
-  return rows[0] ?? null;
-}
-
-/** The seam set of a sculpt; null when no seams were ever saved. */
-export async function selectSeamSet(db: DbExecutor, sculptId: string): Promise<{ revision: number; seams: SeamLine[]; stretchBudgetPct: number } | null> {
-  const rows = await db
-    .select({ revision: seamSets.revision, seams: seamSets.seams, stretchBudgetPct: seamSets.stretchBudgetPct })
-    .from(seamSets)
-    .where(eq(seamSets.sculptId, sculptId));
   return rows[0] ?? null;
 }
 

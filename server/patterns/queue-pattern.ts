@@ -6,6 +6,7 @@
  */
 import type { DbExecutor } from '../../db/client';
 import type { JobSender } from '../jobs/job-sender';
+import { selectSeamSet } from '../sculpts/queries';
 import { PATTERN_JOB } from './pattern-job-name';
 import { patternSettingsFrom } from './pattern-settings';
 import {
@@ -13,7 +14,6 @@ import {
   markPatternFailed,
   selectPieceSettingRows,
   selectSculptForPattern,
-  selectSeamSet,
   setPatternJobId,
   type PatternRow,
 } from './queries';

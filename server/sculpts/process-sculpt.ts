@@ -56,7 +56,7 @@ interface SeamSource {
  * done is left alone.
  */
 export async function processSculpt(ctx: ProcessSculptContext, sculptId: string): Promise<void> {
-  const { db, files } = ctx;
+  const { db } = ctx;
   const row = await claimSculpt(db, sculptId, SCULPT_INTERNAL_FAILURE);
   if (!row) return;
   try {
