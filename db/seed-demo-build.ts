@@ -17,7 +17,7 @@ import { helmetShell } from '../geometry/shapes';
 import { runPatternJob } from '../server/patterns/pattern-job';
 import { patternSettingsFrom } from '../server/patterns/pattern-settings';
 import { insertPattern } from '../server/patterns/queries';
-import { readStoredBytes } from '../server/patterns/read-stored-bytes';
+import { readStoredBytes } from '../server/storage/read-stored-bytes';
 import { upsertPiece, insertNote } from '../server/pieces/queries';
 import { processSculpt } from '../server/sculpts/process-sculpt';
 import { sculptMeshKey, sculptSourceKey } from '../server/sculpts/sculpt-files';

@@ -23,7 +23,7 @@ import {
   selectSculptForPattern,
   setPatternProgress,
 } from './queries';
-import { readStoredBytes } from './read-stored-bytes';
+import { readStoredBytes } from '../storage/read-stored-bytes';
 
 /** Message stored on a pattern a newer save made pointless before it ran. */
 export const PATTERN_SUPERSEDED = 'superseded by a newer seam save';

@@ -19,7 +19,8 @@ import type { FileStore } from '../storage/file-store';
 import { carrySeams, describeCarry } from './carry-seams';
 import { meshEdges } from './mesh-edges';
 import { claimSculpt, markSculptDone, markSculptFailed, replaceSeamSet, selectPreviousDoneSculpt, selectSeamSet, setSculptProgress, type SculptRow } from './queries';
-import { readStoredBytes, sculptMeshKey } from './sculpt-files';
+import { readStoredBytes } from '../storage/read-stored-bytes';
+import { sculptMeshKey } from './sculpt-files';
 
 /** Error stored when processing stopped for a reason other than the model (the queue then retries once). */
 export const SCULPT_INTERNAL_FAILURE = 'the sculpt could not be processed because of a server error; it has been logged and will be tried again';

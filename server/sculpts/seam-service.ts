@@ -15,7 +15,7 @@ import { queuePattern } from '../patterns/queue-pattern';
 import type { FileStore } from '../storage/file-store';
 import { meshEdges, type MeshEdges } from './mesh-edges';
 import { saveSeamSet, selectSeamSet, type SculptRow, type SeamSetRow } from './queries';
-import { readStoredBytes } from './sculpt-files';
+import { readStoredBytes } from '../storage/read-stored-bytes';
 import { requireSculpt } from './service';
 
 export interface SeamSetView {

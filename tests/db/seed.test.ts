@@ -13,7 +13,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { decodePatternFaces } from '../../geometry/pattern/pattern-faces-file';
 import type { PatternDoc } from '../../geometry/pattern/pattern-doc';
-import { readStoredBytes } from '../../server/patterns/read-stored-bytes';
+import { readStoredBytes } from '../../server/storage/read-stored-bytes';
 import { localDiskStore } from '../../server/storage/local-disk-store';
 
 const files = localDiskStore(mkdtempSync(path.join(tmpdir(), 'sheetsmith-seed-')));
