@@ -5,6 +5,8 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import type { PatternDoc } from '../geometry/pattern/pattern-doc';
+import type { PatternFaceMaps } from '../geometry/pattern/build-pattern';
+import { decodePatternFaces } from '../geometry/pattern/pattern-faces-file';
 import { ApiError, apiRequest, fetchBytes } from './api-client';
 
 const id = z.union([z.string().min(1), z.number().int()]).transform(String);
@@ -88,38 +90,8 @@ export function useRequeuePattern(shopId: string, buildId: string) {
 }
 
 /** The decoded faces file: for each face of the working mesh, its piece (index into `doc.pieces`, −1 none) and stretch %. */
-export interface PatternFaces {
-  pieceIndex: Int32Array;
-  stretchPct: Float32Array;
-}
-
-/**
- * Decodes a pattern's faces file (CONTRACTS.md, "GET .../patterns/:patternId/faces"): little-endian u32 face
- * count F, then F Int32 piece indices (−1 for a face in no piece), then F Float32 stretch percentages.
- * Throws an Error naming the byte length found and the length the header asks for when the file is cut short or
- * has bytes left over, and when a stretch value is not a finite number (naming the face).
- */
-export function decodePatternFaces(bytes: Uint8Array): PatternFaces {
-  if (bytes.byteLength < 4) {
-    throw new Error(`The faces file is ${bytes.byteLength} bytes long; it needs at least 4 bytes for the face count.`);
-  }
-  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const count = view.getUint32(0, true);
-  const expected = 4 + count * 8;
-  if (bytes.byteLength !== expected) {
-    throw new Error(`The faces file is ${bytes.byteLength} bytes long but its header names ${count} faces, which need ${expected} bytes.`);
-  }
-  const pieceIndex = new Int32Array(count);
-  const stretchPct = new Float32Array(count);
-  for (let f = 0; f < count; f++) pieceIndex[f] = view.getInt32(4 + f * 4, true);
-  const stretchStart = 4 + count * 4;
-  for (let f = 0; f < count; f++) {
-    const s = view.getFloat32(stretchStart + f * 4, true);
-    if (!Number.isFinite(s)) throw new Error(`The faces file gives face ${f} a stretch that is not a number.`);
-    stretchPct[f] = s;
-  }
-  return { pieceIndex, stretchPct };
-}
+export type PatternFaces = PatternFaceMaps;
+export { decodePatternFaces };
 
 /**
  * Fetches and decodes a pattern's faces file from `url` (a pattern's `facesUrl`); disabled while `url` is null.

@@ -23,21 +23,27 @@ export function encodePatternFaces(faces: PatternFaceMaps): Uint8Array {
 }
 
 /**
- * Reads a faces file. Throws GeometryError TRUNCATED when it is too short for its header, BAD_HEADER when its length does
- * not match the face count in its header.
+ * Reads a faces file. Throws GeometryError TRUNCATED when it is too short for its header, BAD_HEADER when its
+ * length does not match the face count in its header, NON_FINITE (naming the face) when a stretch is not a number.
+ * The messages name the lengths found and needed, for the maker's screen as much as for a log.
  */
 export function decodePatternFaces(bytes: Uint8Array): PatternFaceMaps {
-  if (bytes.byteLength < 4) throw new GeometryError('TRUNCATED', `faces file: ${bytes.byteLength} bytes is too short for the face count`);
+  if (bytes.byteLength < 4) {
+    throw new GeometryError('TRUNCATED', `The faces file is ${bytes.byteLength} bytes long; it needs at least 4 bytes for the face count.`);
+  }
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const F = view.getUint32(0, true);
-  if (bytes.byteLength !== 4 + 8 * F) {
-    throw new GeometryError('BAD_HEADER', `faces file: the header says ${F} faces (${4 + 8 * F} bytes) but the file has ${bytes.byteLength} bytes`);
+  const expected = 4 + 8 * F;
+  if (bytes.byteLength !== expected) {
+    throw new GeometryError('BAD_HEADER', `The faces file is ${bytes.byteLength} bytes long but its header names ${F} faces, which need ${expected} bytes.`);
   }
   const pieceIndex = new Int32Array(F);
   const stretchPct = new Float32Array(F);
   for (let f = 0; f < F; f++) {
     pieceIndex[f] = view.getInt32(4 + 4 * f, true);
-    stretchPct[f] = view.getFloat32(4 + 4 * F + 4 * f, true);
+    const s = view.getFloat32(4 + 4 * F + 4 * f, true);
+    if (!Number.isFinite(s)) throw new GeometryError('NON_FINITE', `The faces file gives face ${f} a stretch that is not a number.`, { face: f });
+    stretchPct[f] = s;
   }
   return { pieceIndex, stretchPct };
 }

@@ -106,6 +106,6 @@ describe('patternWithPieceSettings', () => {
     const back = decodePatternFaces(bytes);
     expect([...back.pieceIndex]).toEqual([...faces.pieceIndex]);
     expect([...back.stretchPct]).toEqual([...faces.stretchPct]);
-    expect(() => decodePatternFaces(bytes.subarray(0, 10))).toThrow(`header says ${F} faces`);
+    expect(() => decodePatternFaces(bytes.subarray(0, 10))).toThrow(`header names ${F} faces`);
   });
 });
