@@ -4,24 +4,17 @@
  * types their password right is never locked out by their own earlier successes (OWASP Authentication Cheat
  * Sheet, "Protect against automated attacks").
  */
-import { createHash } from 'node:crypto';
-import type { Request, RequestHandler } from 'express';
+import type { RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { Db } from '../../db/client';
 import { AppError } from '../errors';
+import { emailRateKey } from './email-rate-key';
 import { PostgresRateLimitStore } from './rate-limit-store';
 
 export interface SignInLimitOptions {
   /** Failed attempts allowed per window. */
   max: number;
   windowMs: number;
-}
-
-/** The e-mail part of the key, hashed so that any body (even a megabyte-long "email") gives a short key. */
-function emailKey(req: Request): string {
-  const raw: unknown = (req.body as { email?: unknown } | undefined)?.email;
-  const email = typeof raw === 'string' ? raw.trim().toLowerCase() : '';
-  return createHash('sha256').update(email).digest('base64url');
 }
 
 /** Returns the middleware; over the limit it answers 429 RATE_LIMITED in the API's error shape. */
@@ -33,7 +26,7 @@ export function signInLimiter(db: Db, options: SignInLimitOptions): RequestHandl
     legacyHeaders: false,
     skipSuccessfulRequests: true,
     store: new PostgresRateLimitStore(db, 'signin:'),
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? 'unknown')}|${emailKey(req)}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? 'unknown')}|${emailRateKey(req)}`,
     handler: (_req, _res, next, used) => {
       const minutes = Math.ceil(used.windowMs / 60_000);
       next(new AppError('RATE_LIMITED', 429, `Too many failed sign-ins; wait up to ${minutes} minutes and try again`));

@@ -9,6 +9,8 @@ import { createHmac, randomBytes } from 'node:crypto';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import express, { type NextFunction, type Request, type Response } from 'express';
+import { escapeHtml } from '../mail/templates/mail-layout';
+import { formatAmount } from '../mail/templates/receipt-mail';
 
 export interface PaymentFakeOptions {
   /** 0 picks a free port. */
@@ -66,14 +68,6 @@ function newId(prefix: string): string {
 
 function apiError(res: Response, status: number, message: string, param?: string): void {
   res.status(status).json({ error: { type: 'invalid_request_error', message, ...(param ? { param } : {}) } });
-}
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
-}
-
-function formatAmount(cents: number, currency: string): string {
-  return `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
 }
 
 /** The fake's own pay page: what is bought, for how much, and two buttons. Plain HTML, no scripts. */

@@ -4,10 +4,10 @@
  * one address cannot probe many inboxes), and failed confirmations per client address (OWASP Forgot Password
  * Cheat Sheet, "rate limiting"). The defaults (10 per address, 3 per e-mail, per hour) are common practice.
  */
-import { createHash } from 'node:crypto';
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { Db } from '../../db/client';
+import { emailRateKey } from '../auth/email-rate-key';
 import { PostgresRateLimitStore } from '../auth/rate-limit-store';
 import { AppError } from '../errors';
 
@@ -17,12 +17,6 @@ export interface PasswordResetLimitOptions {
   /** Requests allowed per e-mail address per window. */
   perEmail: number;
   windowMs: number;
-}
-
-function emailKey(req: Request): string {
-  const raw: unknown = (req.body as { email?: unknown } | undefined)?.email;
-  const email = typeof raw === 'string' ? raw.trim().toLowerCase() : '';
-  return createHash('sha256').update(email).digest('base64url');
 }
 
 function tooMany(what: string) {
@@ -47,7 +41,7 @@ export function resetRequestLimiters(db: Db, options: PasswordResetLimitOptions)
       ...common,
       limit: options.perEmail,
       store: new PostgresRateLimitStore(db, 'reset-email:'),
-      keyGenerator: emailKey,
+      keyGenerator: emailRateKey,
       handler: tooMany('password-reset requests for this e-mail address'),
     }),
   ];
