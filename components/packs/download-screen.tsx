@@ -4,6 +4,7 @@
  */
 import { Linking, Platform, StyleSheet, View } from 'react-native';
 import { useDownload } from '../../hooks/use-packs';
+import { formatBytes } from '../../hooks/use-upload';
 import { Card } from '../ui/card';
 import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
@@ -12,10 +13,6 @@ import { Screen } from '../ui/screen';
 import { PublicHeader } from './public-header';
 import { Text } from '../ui/text';
 import { palette, space } from '../ui/theme';
-
-function sizeLabel(bytes: number): string {
-  return bytes >= 1048576 ? `${(bytes / 1048576).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} kB`;
-}
 
 /** Starts the browser's download of `url` (the server sends it as an attachment, so this page stays). */
 function openFile(url: string): void {
@@ -65,7 +62,7 @@ export function DownloadScreen({ token }: { token: string }) {
             <Text role="link" aria-label={`Download ${f.name}`} onPress={() => openFile(f.url)} style={styles.fileLink}>
               {f.name}
             </Text>
-            <Text variant="mono">{sizeLabel(f.sizeBytes)}</Text>
+            <Text variant="mono">{formatBytes(f.sizeBytes)}</Text>
           </View>
         ))}
       </Card>

@@ -6,6 +6,7 @@
 import { Link } from 'expo-router';
 import { Image, StyleSheet, View } from 'react-native';
 import { usePublicPack } from '../../hooks/use-packs';
+import { formatBytes } from '../../hooks/use-upload';
 import { Card } from '../ui/card';
 import { Loading } from '../ui/loading';
 import { Notice } from '../ui/notice';
@@ -15,10 +16,6 @@ import { PublicHeader } from './public-header';
 import { Text } from '../ui/text';
 import { palette, radius, space } from '../ui/theme';
 import { BuyPackForm } from './buy-pack-form';
-
-function sizeLabel(bytes: number): string {
-  return bytes >= 1048576 ? `${(bytes / 1048576).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} kB`;
-}
 
 /** Renders pack `slug`; `returned` says how the buyer came back from the payment page, if they did. */
 export function PackScreen({ slug, returned }: { slug: string; returned: 'paid' | 'cancelled' | null }) {
@@ -74,7 +71,7 @@ export function PackScreen({ slug, returned }: { slug: string; returned: 'paid' 
       <Text variant="small">{p.pieceCount} pieces, printed at 1:1 with a scale check square:</Text>
       {p.files.map((f) => (
         <Text key={f.name} variant="mono">
-          {f.name} · {sizeLabel(f.sizeBytes)}
+          {f.name} · {formatBytes(f.sizeBytes)}
         </Text>
       ))}
       <Text variant="heading" heading={2} style={styles.heading}>Licence</Text>

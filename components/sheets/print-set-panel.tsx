@@ -7,6 +7,7 @@ import { Linking, Platform, Pressable, StyleSheet, View } from 'react-native';
 import { ApiError } from '../../hooks/api-client';
 import { isJobActive, type PatternView } from '../../hooks/use-pattern';
 import { PRINT_FORMATS, useCreatePrintSet, usePrintSets, type PrintFormat, type PrintMode, type PrintPage, type PrintSetView } from '../../hooks/use-print-sets';
+import { formatBytes } from '../../hooks/use-upload';
 import { formatWhen } from '../builds/format-time';
 import { ChoiceChips } from '../pieces/choice-chips';
 import { JobProgress } from '../pieces/pattern-status';
@@ -41,7 +42,7 @@ function FileLink({ name, url, sizeBytes }: { name: string; url: string; sizeByt
   const words = FILE_WORDS[name] ?? name;
   // react-native-web renders `href` + `hrefAttrs` as an <a href download>; its props are not in the native types.
   const webLink: object = Platform.OS === 'web' ? { href: url, hrefAttrs: { download: name } } : {};
-  const size = sizeBytes >= 1e6 ? `${(sizeBytes / 1e6).toFixed(1)} MB` : `${Math.max(1, Math.round(sizeBytes / 1e3))} kB`;
+  const size = formatBytes(sizeBytes);
   return (
     <Pressable
       role="link"
