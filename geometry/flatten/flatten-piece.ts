@@ -8,6 +8,7 @@ import { preparePiece } from './prepared-piece';
 import { signedAreas } from './signed-area';
 import { triangleStretch } from './triangle-stretch';
 import { tutteEmbedding } from './tutte-embedding';
+import { surfaceArea } from '../mesh/mesh-measures';
 
 /** A piece laid flat. */
 export interface FlatPiece {
@@ -63,7 +64,7 @@ export function flattenPiece(piece: TriMesh, opts: FlattenOptions = {}): FlatPie
     rounds = Math.min(rounds, Math.max(1, Math.floor(opts.maxMillis / perRound)));
   }
   const prepared = preparePiece(positions, triangles);
-  const area3d = surfaceArea(positions, triangles);
+  const area3d = surfaceArea(piece);
   let flat = arapFlattenPrepared(prepared, scaledToArea(lscmPrepared(prepared), triangles, area3d), {
     iterations: rounds,
   });
@@ -121,21 +122,4 @@ function countInverted(uv: Float64Array, triangles: Uint32Array): number {
   let n = 0;
   for (const a of signedAreas(uv, triangles)) if (!(a > 0)) n++;
   return n;
-}
-
-function surfaceArea(positions: Float64Array, triangles: Uint32Array): number {
-  let total = 0;
-  for (let f = 0; f < triangles.length; f += 3) {
-    const a = 3 * triangles[f];
-    const b = 3 * triangles[f + 1];
-    const c = 3 * triangles[f + 2];
-    const ux = positions[b] - positions[a];
-    const uy = positions[b + 1] - positions[a + 1];
-    const uz = positions[b + 2] - positions[a + 2];
-    const vx = positions[c] - positions[a];
-    const vy = positions[c + 1] - positions[a + 1];
-    const vz = positions[c + 2] - positions[a + 2];
-    total += 0.5 * Math.hypot(uy * vz - uz * vy, uz * vx - ux * vz, ux * vy - uy * vx);
-  }
-  return total;
 }
