@@ -2,6 +2,7 @@
  * The cut lines of a flattened piece: its outer boundary and the boundaries of any holes, in the piece's
  * 2D pattern coordinates.
  */
+import { signedAreaMm2 } from '../layout/outline-measure';
 import { boundaryLoops } from '../mesh/boundary-loops';
 import type { PointMm } from './pattern-doc';
 
@@ -12,17 +13,6 @@ export interface PieceOutline {
   holes: PointMm[][];
   /** The local vertex loops behind `outline` (index 0) and `holes` (1…), in the same order as their points. */
   loops: Uint32Array[];
-}
-
-/** Signed area of a closed polygon (shoelace formula), positive when counter-clockwise. */
-export function signedAreaMm2(points: PointMm[]): number {
-  let a = 0;
-  for (let i = 0; i < points.length; i++) {
-    const p = points[i];
-    const q = points[(i + 1) % points.length];
-    a += p[0] * q[1] - q[0] * p[1];
-  }
-  return a / 2;
 }
 
 /**

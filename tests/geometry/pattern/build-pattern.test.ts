@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildPattern } from '../../../geometry/pattern/build-pattern';
 import type { PatternDoc, PointMm } from '../../../geometry/pattern/pattern-doc';
-import { signedAreaMm2 } from '../../../geometry/pattern/piece-outline';
+import { signedAreaMm2 } from '../../../geometry/layout/outline-measure';
 import { cone, cylinder, helmetShell, icoSphere, platonicSolid, sphereGore, transformMesh } from '../../../geometry/shapes';
 import type { PlatonicKind } from '../../../geometry/shapes';
 import type { TriMesh } from '../../../geometry/mesh/tri-mesh';
